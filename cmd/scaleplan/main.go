@@ -1,0 +1,79 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"os"
+
+	"github.com/urfave/cli/v2"
+)
+
+// Exit statuses (the manual in doc.go lists them).
+const (
+	exitOK       = 0
+	exitBadInput = 1
+	exitUsage    = 2
+)
+
+// usageError marks a mistake in how the command was called (exit 2), as
+// opposed to bad input data (exit 1).
+type usageError struct{ msg string }
+
+func (e usageError) Error() string { return e.msg }
+
+func usagef(format string, args ...any) error { return usageError{fmt.Sprintf(format, args...)} }
+
+func main() {
+	os.Exit(run(os.Args, os.Stdout, os.Stderr))
+}
+
+// run executes the command line and returns the exit status; it never
+// panics on user input and prints one line on stderr for an error.
+func run(args []string, stdout, stderr io.Writer) int {
+	app := newApp(stdout, stderr)
+	err := app.Run(args)
+	if err == nil {
+		return exitOK
+	}
+	fmt.Fprintln(stderr, "scaleplan: "+err.Error())
+	var ue usageError
+	if errors.As(err, &ue) {
+		return exitUsage
+	}
+	return exitBadInput
+}
+
+func newApp(stdout, stderr io.Writer) *cli.App {
+	app := &cli.App{
+		Name:      "scaleplan",
+		Usage:     "plan physical model tests: scale, material, medium, facility and similitude compromises",
+		Writer:    stdout,
+		ErrWriter: stderr,
+		// Errors are printed once by run, never by the library.
+		ExitErrHandler:  func(*cli.Context, error) {},
+		HideHelpCommand: true,
+		OnUsageError: func(_ *cli.Context, err error, _ bool) error {
+			return usageError{err.Error()}
+		},
+		CommandNotFound: func(c *cli.Context, name string) {},
+		Commands:        commands(),
+	}
+	app.Action = func(c *cli.Context) error {
+		if c.NArg() > 0 {
+			return usagef("unknown command %q (see scaleplan --help)", c.Args().First())
+		}
+		return cli.ShowAppHelp(c)
+	}
+	for _, cmd := range app.Commands {
+		cmd.OnUsageError = app.OnUsageError
+	}
+	return app
+}
+
+// commands lists the subcommands; each lives in its own file.
+func commands() []*cli.Command {
+	return []*cli.Command{
+		versionCommand(),
+	}
+}
