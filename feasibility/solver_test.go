@@ -159,12 +159,12 @@ func TestSolveReferenceCases(t *testing.T) {
 			free:     []string{"velocity"},
 		},
 		{
-			name:     "elastic + Froude, modulus required",
-			source:   "textbook similitude of hydroelastic models: E scales as kL in Froude scaling with the same density (common practice)",
-			s:        Strategy{Retain: []string{"inertia", "gravity", "elasticity"}, Given: []string{"density", "gravity"}},
-			at:       ones(30, "density", "gravity"),
-			factors:  map[string]float64{"modulus": 30, "velocity": math.Sqrt(30)},
-			exps:     map[string]string{"modulus": "1"},
+			name:    "elastic + Froude, modulus required",
+			source:  "textbook similitude of hydroelastic models: E scales as kL in Froude scaling with the same density (common practice)",
+			s:       Strategy{Retain: []string{"inertia", "gravity", "elasticity"}, Given: []string{"density", "gravity"}},
+			at:      ones(30, "density", "gravity"),
+			factors: map[string]float64{"modulus": 30, "velocity": math.Sqrt(30)},
+			exps:    map[string]string{"modulus": "1"},
 			// E·I follows E because the area moment stays tied.
 			required: []string{"flexural_rigidity", "modulus"},
 		},
