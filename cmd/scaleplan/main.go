@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"strings"
 
 	"github.com/urfave/cli/v2"
 )
@@ -38,7 +39,7 @@ func run(args []string, stdout, stderr io.Writer) int {
 	}
 	fmt.Fprintln(stderr, "scaleplan: "+err.Error())
 	var ue usageError
-	if errors.As(err, &ue) {
+	if errors.As(err, &ue) || strings.HasPrefix(err.Error(), "Required flag") {
 		return exitUsage
 	}
 	return exitBadInput
@@ -74,6 +75,7 @@ func newApp(stdout, stderr io.Writer) *cli.App {
 // commands lists the subcommands; each lives in its own file.
 func commands() []*cli.Command {
 	return []*cli.Command{
+		rulesCommand(),
 		versionCommand(),
 	}
 }

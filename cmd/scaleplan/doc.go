@@ -1,0 +1,65 @@
+/*
+Scaleplan plans physical model tests: it sweeps the length scale of a model
+against candidate materials, media and facilities, solves the similitude
+scale laws of each relaxation strategy exactly, checks every dimensionless
+group and facility limit, and reports the feasible scale window, what limits
+it, the scale effects left, the prediction rules and the cost.
+
+Scale factors follow one convention: k = prototype value / model value, so
+a model at scale 1:25 has kL = 25 and a smaller model has a larger kL.
+
+The results are a planning aid. Scale effects remain in every model test;
+the final test plan and any design decision rest with qualified engineers,
+the facility's operating rules and the applicable codes and classification
+rules.
+
+Usage:
+
+	scaleplan COMMAND [options]
+
+Commands:
+
+	rules      solve the scale laws of one strategy
+	groups     Buckingham pi groups of a list of variables
+	materials  the library of model materials and media
+	version    print the version
+
+Every command takes --help. Commands whose output is data take --json.
+
+Exit status: 0 on success (also when a request turns out infeasible: that
+is a result), 1 on bad input (an unknown name, a malformed value, an
+inconsistent request), 2 on bad usage (an unknown command or flag, a
+missing required flag).
+
+# rules
+
+	scaleplan rules --retain LAWS [--relax LAWS] [--given Q=K,...] [--untie Q,...] [--length K] [--json]
+
+Prints the scale law of every quantity as exact exponents over the length
+scale kL, the given scale factors and any free choice; the compatibility
+conditions the given factors must meet, each named by the group it
+protects; the free choices a study must fix or sweep; the properties the
+model must be given (required); and for each relaxed law the mismatch
+π_prototype/π_model of its group. With --length the factors are evaluated.
+The JSON keys are retain, relax, untie, given, consistent, conditions,
+explanations, only_length, free, exponents (quantity → parameter →
+rational), laws, factors, required, unset and relaxed ({law, group,
+scale_law, ratio, missing}).
+
+A Froude-scaled model in the same water at 1:25:
+
+	$ scaleplan rules --retain inertia,gravity --relax viscosity --given density=1,gravity=1,viscosity=1 --length 25
+
+The same, asking for Reynolds similarity too:
+
+	$ scaleplan rules --retain inertia,gravity,viscosity --given density=1,gravity=1 --length 25
+
+A layer of ice of unchanged strength, with its thickness scaled apart:
+
+	$ scaleplan rules --retain inertia,gravity,flexure --given density=1,gravity=1,strength=1 --untie thickness --length 50
+
+# version
+
+	$ scaleplan version
+*/
+package main

@@ -1,0 +1,76 @@
+package main
+
+import (
+	"bytes"
+	"flag"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+)
+
+var update = flag.Bool("update", false, "rewrite the golden files under testdata/golden")
+
+// manualExamples returns the example command lines of the manual in doc.go
+// (lines that start with a tab and "$ scaleplan").
+func manualExamples(t *testing.T) []string {
+	t.Helper()
+	src, err := os.ReadFile("doc.go")
+	if err != nil {
+		t.Fatal(err)
+	}
+	var out []string
+	for _, line := range strings.Split(string(src), "\n") {
+		if cmd, ok := strings.CutPrefix(line, "\t$ "); ok {
+			out = append(out, cmd)
+		}
+	}
+	if len(out) == 0 {
+		t.Fatal("no examples found in doc.go")
+	}
+	return out
+}
+
+var nonWord = regexp.MustCompile(`[^a-z0-9]+`)
+
+func goldenName(cmd string) string {
+	s := nonWord.ReplaceAllString(strings.ToLower(strings.TrimPrefix(cmd, "scaleplan ")), "-")
+	s = strings.Trim(s, "-")
+	if len(s) > 80 {
+		s = s[:80]
+	}
+	return filepath.Join("testdata", "golden", s+".txt")
+}
+
+// TestManualExamples runs every example of the manual and compares its
+// output with the golden file (go test -update rewrites them; review the
+// diff).
+func TestManualExamples(t *testing.T) {
+	for _, cmd := range manualExamples(t) {
+		t.Run(cmd, func(t *testing.T) {
+			var stdout, stderr bytes.Buffer
+			code := run(strings.Fields(cmd), &stdout, &stderr)
+			if code != 0 {
+				t.Fatalf("exit %d: %s", code, stderr.String())
+			}
+			path := goldenName(cmd)
+			if *update {
+				if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
+					t.Fatal(err)
+				}
+				if err := os.WriteFile(path, stdout.Bytes(), 0o644); err != nil {
+					t.Fatal(err)
+				}
+				return
+			}
+			want, err := os.ReadFile(path)
+			if err != nil {
+				t.Fatalf("%v (run go test ./cmd/scaleplan -update to create it)", err)
+			}
+			if !bytes.Equal(stdout.Bytes(), want) {
+				t.Errorf("output differs from %s:\n%s", path, stdout.String())
+			}
+		})
+	}
+}
