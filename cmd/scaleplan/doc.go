@@ -58,6 +58,29 @@ A layer of ice of unchanged strength, with its thickness scaled apart:
 
 	$ scaleplan rules --retain inertia,gravity,flexure --given density=1,gravity=1,strength=1 --untie thickness --length 50
 
+# groups
+
+	scaleplan groups NAME=UNIT ... [--repeat NAMES] [--json]
+
+Gives the rank of the dimensional matrix of the variables, the number of
+independent dimensionless groups (variables − rank), and a basis of groups
+with exact exponents, each recognised by name where it is a classic group
+(Reynolds, Froude, Weber, Euler, Cauchy, Mach, Strouhal, …) up to
+inversion and powers. The first variable is taken as the dependent one;
+the repeating variables are chosen among the others (a length, then a
+speed, then a density) unless --repeat names them. Units follow the unit
+syntax of studies (kg/m^3, Pa*s, m2/s, kn, psi, …); write 1 for a
+dimensionless variable. The JSON keys are rank, dimensions, repeating,
+count and groups ({exponents, name, text}).
+
+Drag on a sphere:
+
+	$ scaleplan groups F=N rho=kg/m^3 V=m/s D=m mu=Pa*s
+
+Pressure drop in a rough pipe, with the repeating variables chosen:
+
+	$ scaleplan groups dp=Pa rho=kg/m^3 V=m/s D=m mu=Pa*s L=m eps=m --repeat rho,V,D
+
 # version
 
 	$ scaleplan version

@@ -29,6 +29,10 @@ func TestBadInput(t *testing.T) {
 		{[]string{"rules"}, 2, `Required flag "retain" not set`},
 		{[]string{"rules", "--retian", "inertia"}, 2, `flag provided but not defined: -retian`},
 		{[]string{"rules", "--retain", "inertia", "extra"}, 2, `rules takes no arguments`},
+		{[]string{"groups", "F=N", "rho=kg/mx^3"}, 1, `variable rho: unit "kg/mx^3": unknown symbol "mx" at column 4 (did you mean m?)`},
+		{[]string{"groups", "F"}, 1, `"F" is not NAME=UNIT`},
+		{[]string{"groups", "F=N", "V=m/s", "--repeat", "W"}, 1, `repeating variable "W" is not one of the variables`},
+		{[]string{"groups"}, 2, `groups needs variables as NAME=UNIT`},
 		{[]string{"frobnicate"}, 2, `unknown command "frobnicate"`},
 	}
 	for _, c := range cases {

@@ -33,7 +33,7 @@ func main() {
 // panics on user input and prints one line on stderr for an error.
 func run(args []string, stdout, stderr io.Writer) int {
 	app := newApp(stdout, stderr)
-	err := app.Run(args)
+	err := app.Run(flagsFirst(app, args))
 	if err == nil {
 		return exitOK
 	}
@@ -76,6 +76,56 @@ func newApp(stdout, stderr io.Writer) *cli.App {
 func commands() []*cli.Command {
 	return []*cli.Command{
 		rulesCommand(),
+		groupsCommand(),
 		versionCommand(),
 	}
+}
+
+// flagsFirst moves a subcommand's flags before its arguments, so that
+// "scaleplan groups F=N V=m/s --json" works as well as the flags-first
+// order the command-line library expects. "--" ends the flags.
+func flagsFirst(app *cli.App, args []string) []string {
+	if len(args) < 3 {
+		return args
+	}
+	var cmd *cli.Command
+	for _, c := range app.Commands {
+		if c.Name == args[1] {
+			cmd = c
+		}
+	}
+	if cmd == nil {
+		return args
+	}
+	takesValue := map[string]bool{}
+	for _, f := range cmd.Flags {
+		_, isBool := f.(*cli.BoolFlag)
+		for _, n := range f.Names() {
+			takesValue[n] = !isBool
+		}
+	}
+	var flags, rest []string
+	for i := 2; i < len(args); i++ {
+		a := args[i]
+		if a == "--" {
+			rest = append(rest, args[i+1:]...)
+			break
+		}
+		if strings.HasPrefix(a, "-") && len(a) > 1 {
+			flags = append(flags, a)
+			name := strings.TrimLeft(a, "-")
+			if !strings.Contains(name, "=") && takesValue[name] && i+1 < len(args) {
+				i++
+				flags = append(flags, args[i])
+			}
+			continue
+		}
+		rest = append(rest, a)
+	}
+	out := append([]string{args[0], args[1]}, flags...)
+	if len(rest) > 0 {
+		out = append(out, "--")
+		out = append(out, rest...)
+	}
+	return out
 }
