@@ -75,6 +75,9 @@ func newApp(stdout, stderr io.Writer) *cli.App {
 // commands lists the subcommands; each lives in its own file.
 func commands() []*cli.Command {
 	return []*cli.Command{
+		runCommand(),
+		initCommand(),
+		checkCommand(),
 		rulesCommand(),
 		groupsCommand(),
 		versionCommand(),

@@ -1,0 +1,123 @@
+package main
+
+import (
+	"fmt"
+	"os"
+	"strings"
+
+	"github.com/urfave/cli/v2"
+
+	"scaleplan/feasibility"
+	"scaleplan/materials"
+	"scaleplan/sweep"
+)
+
+func initCommand() *cli.Command {
+	return &cli.Command{
+		Name:      "init",
+		Usage:     "write a filled study template",
+		UsageText: "scaleplan init FILE [--scenario NAME] | scaleplan init --list",
+		Description: "Writes a built-in scenario as a study to fill in: a workbook when FILE ends in .xlsx, otherwise a\n" +
+			"folder of .csv sheets. Existing files are never overwritten.",
+		Flags: []cli.Flag{
+			&cli.StringFlag{Name: "scenario", Usage: "the scenario to start from (see --list)"},
+			&cli.BoolFlag{Name: "list", Usage: "name the built-in scenarios"},
+		},
+		Action: func(c *cli.Context) error {
+			list, err := sweep.Scenarios()
+			if err != nil {
+				return err
+			}
+			if c.Bool("list") {
+				for _, s := range list {
+					fmt.Fprintf(c.App.Writer, "%-10s %s\n", s.Name, s.Description)
+				}
+				return nil
+			}
+			if c.NArg() != 1 {
+				return usagef("init needs one FILE (a name ending in .xlsx for a workbook, otherwise a folder of .csv sheets)")
+			}
+			path := c.Args().First()
+			if _, err := os.Stat(path); err == nil {
+				return fmt.Errorf("%s exists: init never writes over a file; choose another name", path)
+			}
+			name := c.String("scenario")
+			if name == "" {
+				name = list[0].Name
+			}
+			s, err := sweep.LoadScenario(name)
+			if err != nil {
+				return err
+			}
+			if strings.HasSuffix(strings.ToLower(path), ".xlsx") {
+				lists, err := templateLists()
+				if err != nil {
+					return err
+				}
+				err = sweep.WriteXLSX(path, s, lists)
+			} else {
+				err = sweep.WriteCSV(path, s)
+			}
+			if err != nil {
+				return err
+			}
+			fmt.Fprintf(c.App.Writer, "wrote %s (scenario %s): edit it, then run scaleplan check %s\n", path, name, path)
+			return nil
+		},
+	}
+}
+
+func templateLists() (sweep.Lists, error) {
+	lib, err := materials.Default()
+	if err != nil {
+		return sweep.Lists{}, err
+	}
+	cat, err := sweep.NewFacilityCatalog()
+	if err != nil {
+		return sweep.Lists{}, err
+	}
+	var entries []string
+	for _, e := range lib.Entries() {
+		entries = append(entries, e.Name)
+	}
+	return sweep.Lists{Laws: feasibility.LawNames(), Quantities: feasibility.QuantityNames(), Entries: entries,
+		FacilityTypes: cat.Types(), Techniques: sweep.Techniques}, nil
+}
+
+func checkCommand() *cli.Command {
+	return &cli.Command{
+		Name:      "check",
+		Usage:     "check a study and report every problem with its sheet and cell",
+		UsageText: "scaleplan check STUDY",
+		Action: func(c *cli.Context) error {
+			if c.NArg() != 1 {
+				return usagef("check needs one STUDY (an .xlsx workbook or a folder of .csv sheets)")
+			}
+			path := c.Args().First()
+			cat, err := sweep.NewFacilityCatalog()
+			if err != nil {
+				return err
+			}
+			s, err := sweep.Load(path)
+			if err == nil {
+				var lib *materials.Library
+				lib, err = materials.Default()
+				if err == nil {
+					var plan *sweep.Plan
+					plan, err = sweep.Prepare(s, lib, cat)
+					if err == nil {
+						fmt.Fprintf(c.App.Writer, "%s: no problems (%d strategies, %d grid points)\n", path, len(plan.Strategies), len(plan.Grid))
+						return nil
+					}
+				}
+			}
+			if ps, ok := err.(sweep.Problems); ok {
+				for _, p := range ps {
+					fmt.Fprintln(c.App.ErrWriter, p.Error())
+				}
+				return fmt.Errorf("%s: %d problems", path, len(ps))
+			}
+			return err
+		},
+	}
+}

@@ -1,0 +1,147 @@
+package report
+
+import (
+	"fmt"
+	"io"
+	"math"
+	"sort"
+	"strings"
+
+	"scaleplan/sweep"
+)
+
+// WriteMemo writes the proposal memo of a study as Markdown: what the test
+// is for, the strategies compared, the one recommended and why, the scale
+// effects left, the prediction rules, the cost and the cautions. Every
+// number comes from the same results as the workbook.
+func WriteMemo(path string, res *sweep.Result) error {
+	return WriteFileAtomic(path, func(w io.Writer) error {
+		_, err := io.WriteString(w, Memo(res))
+		return err
+	})
+}
+
+// Memo returns the memo text.
+func Memo(res *sweep.Result) string {
+	st := res.Plan.Settings
+	b := &strings.Builder{}
+	fmt.Fprintf(b, "# Model test proposal: %s\n\n", res.Name)
+	if st.Purpose != "" {
+		fmt.Fprintf(b, "**Purpose.** %s\n\n", st.Purpose)
+	}
+	fmt.Fprintf(b, "Scale factors follow k = prototype value / model value: a model at 1:25 has kL = 25. "+
+		"The length scale was swept from %s to %s.\n\n", sweep.Scale(st.ScaleFrom), sweep.Scale(st.ScaleTo))
+
+	b.WriteString("## Strategies compared\n\n")
+	b.WriteString("| strategy | technique | feasible window | large-model edge | small-model edge | recommended | cost |\n|---|---|---|---|---|---|---|\n")
+	for _, sr := range res.Strategies {
+		c := sr.Best
+		if c == nil {
+			fmt.Fprintf(b, "| %s | %s | none | %s | | | |\n", md(sr.Name), sr.Technique, md(firstFailing(sr)))
+			continue
+		}
+		large, small := Edges(c.Window)
+		fmt.Fprintf(b, "| %s | %s | %s | %s | %s | %s | %s |\n", md(sr.Name), sr.Technique, WindowText(c.Window),
+			md(large), md(small), sweep.Scale(c.Recommended), Money(c.Cost, st.Currency))
+	}
+	b.WriteString("\n")
+
+	rec, recS := recommended(res)
+	b.WriteString("## Recommendation\n\n")
+	if rec == nil {
+		b.WriteString("No strategy has a feasible scale with the media, materials and facilities of this study. " +
+			"The table above says what closes each window; relax a law, choose another facility or medium, or widen the sweep.\n\n")
+	} else {
+		large, small := Edges(rec.Window)
+		fmt.Fprintf(b, "Use **%s** (%s) at **%s**", recS.Name, recS.Technique, sweep.Scale(rec.Recommended))
+		if !math.IsNaN(rec.ModelLength) {
+			fmt.Fprintf(b, ", a model %s m long", Num3(rec.ModelLength))
+		}
+		fmt.Fprintf(b, ", with %s. The feasible window is %s: the largest model is limited by %s, the smallest by %s.",
+			Candidate(rec), WindowText(rec.Window), large, small)
+		if !math.IsNaN(rec.Cost) {
+			fmt.Fprintf(b, " The campaign is estimated at %s at this scale", Money(rec.Cost, st.Currency))
+			if !math.IsNaN(rec.Cheapest) && rec.Cheapest != rec.Recommended {
+				fmt.Fprintf(b, "; the cheapest feasible scale is %s at %s", sweep.Scale(rec.Cheapest), Money(rec.CheapestCost, st.Currency))
+			}
+			b.WriteString(".")
+		}
+		b.WriteString("\n\n")
+
+		b.WriteString("## Scale effects and corrections\n\n")
+		if len(rec.Mismatches) == 0 && rec.Friction == nil {
+			b.WriteString("The strategy relaxes no law; scale effects beyond the laws modelled remain.\n")
+		}
+		for _, m := range rec.Mismatches {
+			fmt.Fprintf(b, "- The %s (law %s relaxed) is %s times larger in the prototype than in the model.\n", m.Group, m.Law, Num3(m.Ratio))
+		}
+		if f := rec.Friction; f != nil {
+			fmt.Fprintf(b, "- Skin friction is corrected with the ITTC-1957 line: C_F = %.4g in the model (Re %.3g) and %.4g at full scale (Re %.3g), a correction of ΔC_F = %.4g.\n",
+				f.CFModel, f.ReModel, f.CFProto, f.ReProto, f.Delta)
+		}
+		for _, pv := range rec.Required {
+			what := "required"
+			if pv.Tuned {
+				what = "tuned"
+			}
+			fmt.Fprintf(b, "- The model's %s is %s: %s %s at the recommended scale (%s to %s across the window; %s).\n",
+				pv.Quantity, what, Num3(pv.AtRecommended), unitOf(pv.Quantity), Num3(pv.AtLo), Num3(pv.AtHi), pv.Law)
+			if recS.Technique == "substitute" {
+				if len(pv.Matches) == 0 {
+					b.WriteString("  No entry of the library meets it within the study's tolerance.\n")
+				} else {
+					fmt.Fprintf(b, "  Library entries that meet it: %s.\n", strings.Join(pv.Matches, ", "))
+				}
+			}
+		}
+		b.WriteString("\n## Prediction rules\n\n")
+		b.WriteString("A model measurement times the multiplier gives the prototype value.\n\n| quantity | scale law | multiplier |\n|---|---|---|\n")
+		sol := caseSolution(recS, rec)
+		keys := make([]string, 0, len(rec.Factors))
+		for q := range rec.Factors {
+			keys = append(keys, q)
+		}
+		sort.Strings(keys)
+		for _, q := range keys {
+			fmt.Fprintf(b, "| %s | %s | %s |\n", q, md(sol.LawString(q)), Num3(rec.Factors[q]))
+		}
+	}
+	b.WriteString("\n## Cautions\n\n")
+	for _, c := range Cautions {
+		fmt.Fprintf(b, "- %s\n", c)
+	}
+	return b.String()
+}
+
+// recommended picks the strategy whose best option allows the largest
+// model (the cheapest when the study asks for it).
+func recommended(res *sweep.Result) (*sweep.ComboResult, *sweep.StrategyResult) {
+	var best *sweep.ComboResult
+	var bs *sweep.StrategyResult
+	for _, sr := range res.Strategies {
+		c := sr.Best
+		if c == nil {
+			continue
+		}
+		if best == nil || (res.Plan.Settings.Recommend == "cheapest" && c.Cost < best.Cost) ||
+			(res.Plan.Settings.Recommend != "cheapest" && c.Recommended < best.Recommended) {
+			best, bs = c, sr
+		}
+	}
+	return best, bs
+}
+
+// caseSolution finds the solution of a combination's case.
+func caseSolution(sr *sweep.StrategyResult, c *sweep.ComboResult) interface{ LawString(string) string } {
+	for _, cs := range sr.Cases {
+		if cs.Case == c.Case {
+			return cs.Solution
+		}
+	}
+	return sr.Cases[0].Solution
+}
+
+// md escapes the characters that would break a Markdown table cell.
+func md(s string) string {
+	return strings.NewReplacer("|", "\\|", "\n", " ").Replace(s)
+}

@@ -1,0 +1,726 @@
+package sweep
+
+import (
+	"context"
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"scaleplan/feasibility"
+	"scaleplan/materials"
+)
+
+// Result is the outcome of one study.
+type Result struct {
+	Plan       *Plan
+	Name       string
+	Strategies []*StrategyResult
+}
+
+// StrategyResult gathers the combinations of one strategy.
+type StrategyResult struct {
+	Name, Technique string
+	Cases           []*PlanCase
+	Combos          []*ComboResult // one per case × candidate × facility
+	// Joint holds, for a strategy with several cases, the scales at which
+	// one model serves every case, per facility.
+	Joint []*ComboResult
+	// Best is the combination recommended for the strategy (nil when none
+	// is feasible): the largest model, or the cheapest when the study asks.
+	Best *ComboResult
+}
+
+// ComboResult is the result of one combination of a case, a candidate pair
+// and a facility.
+type ComboResult struct {
+	Strategy, Case, Technique  string
+	Medium, Material, Facility string
+	Axis                       float64 // best second-axis value; NaN without an axis
+	Window                     Window
+	Recommended                float64 // NaN when the window is empty
+	Largest                    float64
+	Cheapest, CheapestCost     float64
+	Cost                       float64 // at the recommended scale; NaN without costs
+	ModelLength                float64 // reference length of the model at the recommended scale, m
+	// Failing says what empties the window.
+	Failing    string
+	Conditions []string
+	Notes      []string
+	Limits     []LimitInfo
+	Required   []PropertyValue
+	Mismatches []MismatchValue
+	Friction   *Friction
+	// Factors holds the scale factor k of every quantity the strategy
+	// sets, at the recommended scale: the prediction rules.
+	Factors map[string]float64
+	// Margins holds the margin of every grid point (decades) and Limiting
+	// the index into Limits of the limit that gives it (-1 for a
+	// similarity condition); with a second axis, AxisMargins holds one
+	// row per axis value.
+	Margins     []float64
+	Limiting    []int
+	AxisMargins [][]float64
+	AxisWindows []Window
+	Err         string
+}
+
+// LimitInfo describes a limit applied to a combination.
+type LimitInfo struct {
+	Name, Expression, Source string
+	Linear                   bool
+	// For a products-of-powers limit, margin = A + B·log10 kL.
+	A, B float64
+}
+
+// PropertyValue is a property the model must have, in SI.
+type PropertyValue struct {
+	Quantity      string
+	Law           string  // its scale law
+	AtLo, AtHi    float64 // at the window edges (model values)
+	AtRecommended float64
+	Matches       []string // library entries that meet it within tolerance
+	Tuned         bool
+}
+
+// MismatchValue is a relaxed group's mismatch π_p/π_m at the recommended
+// scale.
+type MismatchValue struct {
+	Law, Group string
+	Ratio      float64
+}
+
+// Friction is the ITTC-1957 skin-friction correction at the recommended
+// scale: C_F = 0.075 / (log10 Re − 2)².
+type Friction struct {
+	ReModel, ReProto, CFModel, CFProto, Delta float64
+}
+
+// ITTC1957 returns the ITTC-1957 model–ship correlation line's friction
+// coefficient at Reynolds number re.
+func ITTC1957(re float64) float64 {
+	d := math.Log10(re) - 2
+	return 0.075 / (d * d)
+}
+
+// Run sweeps every strategy of the plan. It stops early when ctx is done.
+func (p *Plan) Run(ctx context.Context) (*Result, error) {
+	res := &Result{Plan: p, Name: p.Settings.Name}
+	us := make([]float64, len(p.Grid))
+	for i, k := range p.Grid {
+		us[i] = math.Log10(k)
+	}
+	for _, st := range p.Strategies {
+		sr := &StrategyResult{Name: st.Name, Technique: st.Technique, Cases: st.Cases}
+		for _, c := range st.Cases {
+			for _, m := range candidatesOrNil(c.Media) {
+				for _, mat := range candidatesOrNil(c.Materials) {
+					for _, f := range facilitiesOrNil(c.Facilities) {
+						if err := ctx.Err(); err != nil {
+							return nil, err
+						}
+						sr.Combos = append(sr.Combos, p.runCombo(c, m, mat, f, us))
+					}
+				}
+			}
+		}
+		if len(st.Cases) > 1 {
+			sr.Joint = p.joint(st, sr.Combos)
+		}
+		sr.Best = p.best(sr)
+		res.Strategies = append(res.Strategies, sr)
+	}
+	return res, nil
+}
+
+func facilitiesOrNil(fs []*Facility) []*Facility {
+	if len(fs) == 0 {
+		return []*Facility{nil}
+	}
+	return fs
+}
+
+func name(c *Candidate2) string {
+	if c == nil {
+		return ""
+	}
+	return c.Name
+}
+
+// runCombo sweeps one combination over the grid (and the second axis).
+func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float64) *ComboResult {
+	r := &ComboResult{Strategy: c.Strategy, Case: c.Case, Technique: c.Technique,
+		Medium: name(m), Material: name(mat), Axis: math.NaN(), Recommended: math.NaN(), Largest: math.NaN(),
+		Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN()}
+	if f != nil {
+		r.Facility = f.Name
+	}
+	axes := []float64{math.NaN()}
+	if p.AxisValues != nil && p.axisApplies(c, f) {
+		axes = p.AxisValues
+	}
+	bestI := -1
+	var best *sweepOut
+	for i, a := range axes {
+		x, err := p.newCombo(c, m, mat, f, a)
+		if err != nil {
+			r.Err = err.Error()
+			return r
+		}
+		out, err := x.sweep(us)
+		if err != nil {
+			r.Err = err.Error()
+			return r
+		}
+		if len(axes) > 1 {
+			r.AxisMargins = append(r.AxisMargins, out.margins)
+			r.AxisWindows = append(r.AxisWindows, out.window)
+		}
+		if best == nil || better(out.window, best.window) {
+			best, bestI = out, i
+			best.combo = x
+		}
+	}
+	if len(axes) > 1 {
+		r.Axis = axes[bestI]
+	}
+	best.fill(r)
+	return r
+}
+
+// axisApplies reports whether the second axis changes this combination.
+func (p *Plan) axisApplies(c *PlanCase, f *Facility) bool {
+	ax := p.Settings.Axis
+	if isCondition(ax) {
+		return true
+	}
+	for _, fr := range c.Solution.Free {
+		if fr == ax {
+			return true
+		}
+	}
+	return f != nil && p.isCapability(f, ax)
+}
+
+// better prefers a window that allows a larger model, then a wider one.
+func better(a, b Window) bool {
+	if a.Empty() {
+		return false
+	}
+	if b.Empty() {
+		return true
+	}
+	if a.Largest() != b.Largest() {
+		return a.Largest() < b.Largest()
+	}
+	return width(a) > width(b)
+}
+
+func width(w Window) float64 {
+	s := 0.0
+	for _, iv := range w {
+		s += math.Log10(iv.Hi / iv.Lo)
+	}
+	return s
+}
+
+// compiled is a limit ready to evaluate for one combination.
+type compiled struct {
+	info  LimitInfo
+	lim   *feasibility.Limit
+	forms map[string]linForm
+	// lower/upper range limits of a tuned property are built directly.
+}
+
+// sweepOut is what one combination at one axis value gives.
+type sweepOut struct {
+	combo      *combo
+	limits     []compiled
+	window     Window
+	margins    []float64
+	limiting   []int
+	failing    string
+	conditions []string
+	notes      []string
+}
+
+// limitsFor collects the limits that apply to a combination: the facility
+// type's defaults (unless the study overrides them by name), the study's
+// limits, and the ranges of tuned properties.
+func (x *combo) limitsFor() ([]compiled, []string, error) {
+	p := x.plan
+	var out []compiled
+	var notes []string
+	applies := func(a string) bool {
+		return a == "all" || (x.fac != nil && (a == x.fac.Type || a == x.fac.Name))
+	}
+	overridden := map[string]bool{}
+	for _, l := range p.Limits {
+		if applies(l.AppliesTo) {
+			overridden[l.Name] = true
+		}
+	}
+	resolve := func(l *feasibility.Limit) (map[string]linForm, error) {
+		forms := map[string]linForm{}
+		for _, n := range l.Names() {
+			f, err := x.form(n)
+			if err != nil {
+				return nil, err
+			}
+			forms[n] = f
+		}
+		return forms, nil
+	}
+	add := func(info LimitInfo, l *feasibility.Limit, forms map[string]linForm) {
+		c := compiled{info: info, lim: l, forms: forms}
+		if k, terms, ok := l.LogLinear(); ok {
+			c.info.Linear = true
+			c.info.A = k
+			for _, t := range terms {
+				e := t.Exp.Float64()
+				f := forms[t.Name]
+				c.info.A += e * f.C / math.Ln10
+				c.info.B += e * f.E
+			}
+		}
+		out = append(out, c)
+	}
+	if x.fac != nil {
+		for _, d := range p.Catalog.DefaultLimits(x.fac.Type) {
+			if overridden[d.Name] {
+				continue
+			}
+			forms, err := resolve(d.Limit)
+			if err != nil {
+				notes = append(notes, fmt.Sprintf("default limit %q not applied: %v", d.Name, err))
+				continue
+			}
+			add(LimitInfo{Name: d.Name, Expression: d.Expression, Source: d.Source}, d.Limit, forms)
+		}
+	}
+	for _, l := range p.Limits {
+		if !applies(l.AppliesTo) {
+			continue
+		}
+		forms, err := resolve(l.Limit)
+		if err != nil {
+			return nil, nil, fmt.Errorf("Limits!%s%d: %v", ColumnLetters(3), l.Row, err)
+		}
+		add(LimitInfo{Name: l.Name, Expression: l.Limit.Text, Source: l.Source}, l.Limit, forms)
+	}
+	for _, q := range x.cas.Solution.Strategy.Tuned {
+		pr, ok := x.props[q]
+		if !ok || !(pr.Max > pr.Min) {
+			notes = append(notes, fmt.Sprintf("tuned %s: the candidate states no range, so none is checked", q))
+			continue
+		}
+		unit := quantityUnit(q)
+		for _, side := range []struct {
+			op, what string
+			v        float64
+		}{{">=", "min", pr.Min}, {"<=", "max", pr.Max}} {
+			text := fmt.Sprintf("%s %s %s", q, side.op, formatSI(side.v, unit))
+			l, err := feasibility.ParseLimit(text)
+			if err != nil {
+				return nil, nil, err
+			}
+			forms, err := resolve(l)
+			if err != nil {
+				return nil, nil, err
+			}
+			add(LimitInfo{Name: "tuned " + q + " " + side.what, Expression: text, Source: "range of " + describePair(x.medium, x.material)}, l, forms)
+		}
+	}
+	return out, notes, nil
+}
+
+func quantityUnit(q string) string {
+	if qq, err := feasibility.LookupQuantity(q); err == nil {
+		return qq.SI
+	}
+	return ""
+}
+
+func formatSI(v float64, unit string) string {
+	s := fmt.Sprintf("%.6g", v)
+	if unit != "" && unit != "1" {
+		s += " " + unit
+	}
+	return s
+}
+
+// sweep evaluates every limit over the grid and finds the window.
+func (x *combo) sweep(us []float64) (*sweepOut, error) {
+	limits, notes, err := x.limitsFor()
+	if err != nil {
+		return nil, err
+	}
+	out := &sweepOut{combo: x, limits: limits, notes: notes}
+	u0, u1 := us[0], us[len(us)-1]
+	win := []uInterval{{u0, u1, RangeLimit, RangeLimit}}
+	for _, l := range limits {
+		if l.info.Linear {
+			win = intersect(win, halfLine(l.info.A, l.info.B, l.info.Name, u0, u1))
+		} else {
+			l := l
+			win = intersect(win, sampled(us, func(u float64) float64 { return l.margin(u) }, l.info.Name))
+		}
+	}
+	// Similarity conditions of the strategy at these factors.
+	sol := x.cas.Solution
+	checks, err := sol.Check(x.values)
+	if err != nil {
+		return nil, err
+	}
+	condU := math.NaN()
+	condFails := ""
+	for _, cc := range checks {
+		out.conditions = append(out.conditions, cc.Protects+": "+cc.Equation(sol.Params))
+		switch {
+		case cc.PinsLength:
+			u := math.Log10(cc.Length)
+			if !math.IsNaN(condU) && math.Abs(condU-u) > 1e-9 {
+				condFails = "two similarity conditions ask for different scales"
+			}
+			condU = u
+			label := "similarity: " + cc.Protects
+			win = intersect(win, []uInterval{{u, u, label, label}})
+			if u < u0 || u > u1 {
+				condFails = fmt.Sprintf("%s holds only at %s, outside the sweep", cc.Protects, Scale(cc.Length))
+			}
+		case cc.Known && !cc.Holds:
+			condFails = fmt.Sprintf("%s cannot be met with %s (off by a factor %.3g)", cc.Protects, describePair(x.medium, x.material), cc.Off)
+			win = nil
+		}
+	}
+	out.window = toWindow(win)
+	// Margins on the grid, for the maps.
+	out.margins = make([]float64, len(us))
+	out.limiting = make([]int, len(us))
+	for i, u := range us {
+		m, arg := math.Inf(1), -2
+		for j, l := range limits {
+			v := l.margin(u)
+			if v < m {
+				m, arg = v, j
+			}
+		}
+		if condFails != "" && math.IsNaN(condU) {
+			m, arg = math.Inf(-1), -1
+		} else if !math.IsNaN(condU) {
+			if v := -math.Abs(u - condU); v < m {
+				m, arg = v, -1
+			}
+		}
+		out.margins[i], out.limiting[i] = m, arg
+	}
+	if out.window.Empty() {
+		out.failing = condFails
+		if out.failing == "" {
+			bi := 0
+			for i := range out.margins {
+				if out.margins[i] > out.margins[bi] {
+					bi = i
+				}
+			}
+			if j := out.limiting[bi]; j >= 0 {
+				out.failing = fmt.Sprintf("no scale satisfies every limit: at best (%s) %q is short by %.2f decades", Scale(math.Pow(10, us[bi])), limits[j].info.Name, -out.margins[bi])
+			} else {
+				out.failing = "no scale satisfies every limit"
+			}
+		}
+	}
+	return out, nil
+}
+
+// margin evaluates a limit's margin at u = log10 kL.
+func (l compiled) margin(u float64) float64 {
+	if l.info.Linear {
+		return l.info.A + l.info.B*u
+	}
+	ln := u * math.Ln10
+	return l.lim.Margin(func(n string) float64 { return l.forms[n].at(ln) })
+}
+
+// Scale prints a length scale the way the trade writes it: "1:25".
+func Scale(kL float64) string {
+	if math.IsNaN(kL) {
+		return "-"
+	}
+	if kL >= 10 {
+		return fmt.Sprintf("1:%.4g", math.Round(kL*10)/10)
+	}
+	return fmt.Sprintf("1:%.3g", kL)
+}
+
+// fill copies a sweep's findings into the combination result and works
+// out the recommended scale, cost, required properties and corrections.
+func (o *sweepOut) fill(r *ComboResult) {
+	x := o.combo
+	p := x.plan
+	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
+	r.Margins, r.Limiting = o.margins, o.limiting
+	for _, l := range o.limits {
+		r.Limits = append(r.Limits, l.info)
+	}
+	if r.Window.Empty() {
+		return
+	}
+	r.Largest = r.Window.Largest()
+	costAt := func(kL float64) (float64, error) { return x.cost(kL) }
+	hasCost := len(x.costs()) > 0
+	if hasCost {
+		cands := []float64{}
+		for _, iv := range r.Window {
+			cands = append(cands, iv.Lo, iv.Hi)
+		}
+		for _, k := range p.Grid {
+			if r.Window.Contains(k) {
+				cands = append(cands, k)
+			}
+		}
+		sort.Float64s(cands)
+		for _, k := range cands {
+			c, err := costAt(k)
+			if err != nil {
+				r.Err = err.Error()
+				break
+			}
+			if math.IsNaN(r.CheapestCost) || c < r.CheapestCost {
+				r.Cheapest, r.CheapestCost = k, c
+			}
+		}
+	}
+	r.Recommended = r.Largest
+	if p.Settings.Recommend == "cheapest" && hasCost && !math.IsNaN(r.Cheapest) {
+		r.Recommended = r.Cheapest
+	}
+	if hasCost {
+		if c, err := costAt(r.Recommended); err == nil {
+			r.Cost = c
+		}
+	}
+	ln := math.Log(r.Recommended)
+	if ref := p.Settings.ReferenceLength; ref != "" {
+		if f, err := x.form(ref); err == nil {
+			r.ModelLength = f.at(ln)
+		}
+	}
+	sol := x.cas.Solution
+	lo, hi := math.Log(r.Window[0].Lo), math.Log(r.Window[len(r.Window)-1].Hi)
+	for _, q := range sol.Required {
+		pv := PropertyValue{Quantity: q, Law: sol.LawString(q)}
+		for _, t := range sol.Strategy.Tuned {
+			pv.Tuned = pv.Tuned || t == q
+		}
+		f, err := x.form(q)
+		if err != nil {
+			r.Notes = append(r.Notes, fmt.Sprintf("required %s: %v", q, err))
+			continue
+		}
+		pv.AtLo, pv.AtHi, pv.AtRecommended = f.at(lo), f.at(hi), f.at(ln)
+		if x.cas.Technique == "substitute" {
+			pv.Matches = p.libraryMatches(q, pv.AtLo, pv.AtHi)
+		}
+		r.Required = append(r.Required, pv)
+	}
+	v := feasibility.Values{}
+	for k, val := range x.values {
+		v[k] = val
+	}
+	v["length"] = r.Recommended
+	if f, err := sol.Factors(v); err == nil {
+		r.Factors = f
+	}
+	for _, m := range sol.Relaxed {
+		if ratio, ok, err := sol.MismatchValue(m, v); err == nil && ok {
+			r.Mismatches = append(r.Mismatches, MismatchValue{m.Law, m.Group, ratio})
+		} else {
+			r.Notes = append(r.Notes, fmt.Sprintf("relaxed %s: give %s to evaluate the %s mismatch", m.Law, strings.Join(m.Missing, ", "), m.Group))
+		}
+	}
+	if x.cas.Correction == "ittc1957" {
+		r.Friction = x.friction(ln)
+		if r.Friction == nil {
+			r.Notes = append(r.Notes, "ITTC-1957 correction needs reference_length, reference_speed and the kinematic viscosity of prototype and model")
+		}
+	}
+}
+
+// friction computes the ITTC-1957 correction at ln kL.
+func (x *combo) friction(ln float64) *Friction {
+	p := x.plan
+	L, V := p.Settings.ReferenceLength, p.Settings.ReferenceSpeed
+	nuP, ok := p.Proto["kinematic_viscosity"]
+	if L == "" || V == "" || !ok {
+		return nil
+	}
+	fl, err1 := x.form(L)
+	fv, err2 := x.form(V)
+	fn, err3 := x.form("kinematic_viscosity")
+	if err1 != nil || err2 != nil || err3 != nil {
+		return nil
+	}
+	f := &Friction{
+		ReModel: fl.at(ln) * fv.at(ln) / fn.at(ln),
+		ReProto: p.Items[L].Value * p.Items[V].Value / nuP,
+	}
+	f.CFModel, f.CFProto = ITTC1957(f.ReModel), ITTC1957(f.ReProto)
+	f.Delta = f.CFModel - f.CFProto
+	return f
+}
+
+// costs returns the cost items that apply to the combination's facility.
+func (x *combo) costs() []*PlanCost {
+	var out []*PlanCost
+	for _, c := range x.plan.Costs {
+		if c.Facility == "" || (x.fac != nil && c.Facility == x.fac.Name) {
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+// cost is the campaign cost at a length scale.
+func (x *combo) cost(kL float64) (float64, error) {
+	ln := math.Log(kL)
+	total := 0.0
+	for _, c := range x.costs() {
+		var ferr error
+		v := c.Measure.Eval(func(n string) float64 {
+			f, err := x.form(n)
+			if err != nil && ferr == nil {
+				ferr = err
+			}
+			return f.at(ln)
+		})
+		if ferr != nil {
+			return 0, fmt.Errorf("Costs!D%d: %v", c.Row, ferr)
+		}
+		total += c.Coefficient * v / c.Per.Factor
+	}
+	return total, nil
+}
+
+// libraryMatches lists the library entries whose property lies within
+// the study's tolerance of the range a model needs.
+func (p *Plan) libraryMatches(q string, a, b float64) []string {
+	lo, hi := math.Min(a, b), math.Max(a, b)
+	tol := p.Settings.Tolerance
+	var out []string
+	for _, e := range p.Library.Entries() {
+		props, err := e.At(materials.Conditions{})
+		if err != nil {
+			continue
+		}
+		for _, pr := range props {
+			if pr.Quantity == q && pr.Value >= lo*(1-tol) && pr.Value <= hi*(1+tol) {
+				out = append(out, e.Name)
+			}
+		}
+	}
+	return out
+}
+
+// joint intersects, per facility, the windows of every case: the scales at
+// which one model serves all of them (with any of each case's candidates).
+func (p *Plan) joint(st *PlanStrategy, combos []*ComboResult) []*ComboResult {
+	byFac := map[string][]*ComboResult{}
+	var facs []string
+	for _, c := range combos {
+		if _, ok := byFac[c.Facility]; !ok {
+			facs = append(facs, c.Facility)
+		}
+		byFac[c.Facility] = append(byFac[c.Facility], c)
+	}
+	var out []*ComboResult
+	for _, f := range facs {
+		var win []uInterval
+		first := true
+		var parts []string
+		for _, cs := range st.Cases {
+			var union []uInterval
+			for _, c := range byFac[f] {
+				if c.Case != cs.Case {
+					continue
+				}
+				for _, iv := range c.Window {
+					union = append(union, uInterval{math.Log10(iv.Lo), math.Log10(iv.Hi), caseLabel(cs.Case, iv.LoLimit), caseLabel(cs.Case, iv.HiLimit)})
+				}
+			}
+			union = unionOf(union)
+			if first {
+				win, first = union, false
+			} else {
+				win = intersect(win, union)
+			}
+			parts = append(parts, cs.Case)
+		}
+		j := &ComboResult{Strategy: st.Name, Case: "all cases (" + strings.Join(parts, " + ") + ")", Technique: st.Technique,
+			Facility: f, Axis: math.NaN(), Window: toWindow(win), Recommended: math.NaN(), Largest: math.NaN(),
+			Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN()}
+		if j.Window.Empty() {
+			j.Failing = "no scale serves every case in this facility"
+		} else {
+			j.Largest = j.Window.Largest()
+			j.Recommended = j.Largest
+		}
+		out = append(out, j)
+	}
+	return out
+}
+
+func caseLabel(c, l string) string {
+	if l == RangeLimit {
+		return l
+	}
+	return c + ": " + l
+}
+
+// unionOf merges overlapping intervals.
+func unionOf(a []uInterval) []uInterval {
+	if len(a) == 0 {
+		return nil
+	}
+	sort.Slice(a, func(i, j int) bool { return a[i].lo < a[j].lo })
+	out := []uInterval{a[0]}
+	for _, iv := range a[1:] {
+		last := &out[len(out)-1]
+		if iv.lo <= last.hi {
+			if iv.hi > last.hi {
+				last.hi, last.hiL = iv.hi, iv.hiL
+			}
+			continue
+		}
+		out = append(out, iv)
+	}
+	return out
+}
+
+// best picks the recommended combination of a strategy.
+func (p *Plan) best(sr *StrategyResult) *ComboResult {
+	pool := sr.Combos
+	if len(sr.Joint) > 0 {
+		pool = sr.Joint
+	}
+	var b *ComboResult
+	for _, c := range pool {
+		if c.Window.Empty() || c.Err != "" {
+			continue
+		}
+		if b == nil {
+			b = c
+			continue
+		}
+		if p.Settings.Recommend == "cheapest" && !math.IsNaN(c.Cost) && !math.IsNaN(b.Cost) {
+			if c.Cost < b.Cost {
+				b = c
+			}
+			continue
+		}
+		if c.Recommended < b.Recommended {
+			b = c
+		}
+	}
+	return b
+}

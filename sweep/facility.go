@@ -1,0 +1,126 @@
+package sweep
+
+import (
+	"bytes"
+	"embed"
+	"encoding/csv"
+	"fmt"
+	"sort"
+
+	"scaleplan/feasibility"
+)
+
+//go:embed data/capabilities.csv data/default_limits.csv
+var facilityData embed.FS
+
+// Capability is a named capability a facility type may state.
+type Capability struct {
+	Type, Name, Unit, Meaning string
+	Dim                       feasibility.Dimension
+}
+
+// DefaultLimit is a limit every facility of a type brings unless the study
+// overrides it by name.
+type DefaultLimit struct {
+	Type, Name, Expression, Source string
+	Limit                          *feasibility.Limit
+}
+
+// FacilityCatalog is the facility types with their capabilities and
+// default limits, read from the embedded data. Build one with
+// NewFacilityCatalog; it is read-only afterwards.
+type FacilityCatalog struct {
+	types        []string
+	capabilities map[string][]Capability // by type ("any" for every type)
+	limits       map[string][]DefaultLimit
+}
+
+// AnyType is the pseudo-type whose capabilities and limits apply to every
+// facility.
+const AnyType = "any"
+
+func readCSV(name string) ([][]string, error) {
+	b, err := facilityData.ReadFile(name)
+	if err != nil {
+		return nil, err
+	}
+	rows, err := csv.NewReader(bytes.NewReader(b)).ReadAll()
+	if err != nil {
+		return nil, fmt.Errorf("%s: %v", name, err)
+	}
+	return rows[1:], nil
+}
+
+// NewFacilityCatalog reads the embedded facility data.
+func NewFacilityCatalog() (*FacilityCatalog, error) {
+	c := &FacilityCatalog{capabilities: map[string][]Capability{}, limits: map[string][]DefaultLimit{}}
+	rows, err := readCSV("data/capabilities.csv")
+	if err != nil {
+		return nil, err
+	}
+	seen := map[string]bool{}
+	for i, r := range rows {
+		u, err := feasibility.ParseUnit(r[2])
+		if err != nil {
+			return nil, fmt.Errorf("capabilities.csv row %d: %v", i+2, err)
+		}
+		c.capabilities[r[0]] = append(c.capabilities[r[0]], Capability{r[0], r[1], r[2], r[3], u.Dim})
+		if r[0] != AnyType && !seen[r[0]] {
+			seen[r[0]] = true
+			c.types = append(c.types, r[0])
+		}
+	}
+	sort.Strings(c.types)
+	rows, err = readCSV("data/default_limits.csv")
+	if err != nil {
+		return nil, err
+	}
+	for i, r := range rows {
+		l, err := feasibility.ParseLimit(r[2])
+		if err != nil {
+			return nil, fmt.Errorf("default_limits.csv row %d: %v", i+2, err)
+		}
+		c.limits[r[0]] = append(c.limits[r[0]], DefaultLimit{r[0], r[1], r[2], r[3], l})
+	}
+	return c, nil
+}
+
+// Types returns the facility types, sorted.
+func (c *FacilityCatalog) Types() []string { return append([]string(nil), c.types...) }
+
+// HasType reports whether t is a known facility type.
+func (c *FacilityCatalog) HasType(t string) bool {
+	_, ok := c.capabilities[t]
+	return ok && t != AnyType
+}
+
+// Capabilities returns the capabilities of a type, those of every type
+// included.
+func (c *FacilityCatalog) Capabilities(t string) []Capability {
+	return append(append([]Capability(nil), c.capabilities[t]...), c.capabilities[AnyType]...)
+}
+
+// Capability returns one capability of a type.
+func (c *FacilityCatalog) Capability(t, name string) (Capability, bool) {
+	for _, cp := range c.Capabilities(t) {
+		if cp.Name == name {
+			return cp, true
+		}
+	}
+	return Capability{}, false
+}
+
+// CapabilityNames returns the names of a type's capabilities.
+func (c *FacilityCatalog) CapabilityNames(t string) []string {
+	var names []string
+	for _, cp := range c.Capabilities(t) {
+		names = append(names, cp.Name)
+	}
+	return names
+}
+
+// DefaultLimits returns the default limits of a type, those of every type
+// included.
+func (c *FacilityCatalog) DefaultLimits(t string) []DefaultLimit {
+	return append(append([]DefaultLimit(nil), c.limits[t]...), c.limits[AnyType]...)
+}

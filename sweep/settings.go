@@ -1,0 +1,175 @@
+package sweep
+
+import (
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+
+	"scaleplan/feasibility"
+)
+
+// Settings are the parsed rows of the Study sheet.
+type Settings struct {
+	Name, Purpose       string
+	ScaleFrom, ScaleTo  float64 // kL range of the sweep
+	Points              int
+	Axis                string // optional second axis: a free choice, a medium condition or a facility capability
+	AxisFrom, AxisTo    float64
+	AxisPoints          int
+	AxisUnit            feasibility.Unit
+	AxisLinear          bool
+	Tolerance           float64 // relative tolerance for substitute materials
+	Currency            string
+	Recommend           string // "largest" or "cheapest"
+	PrototypeMedium     string
+	PrototypeMediumAt   string
+	PrototypeMaterial   string
+	PrototypeMaterialAt string
+	ReferenceLength     string // prototype item giving the model length
+	ReferenceSpeed      string // prototype item giving the test speed
+	MaxPoints           int    // refuse sweeps larger than this
+	InputsDate          string
+	cells               map[string]Cell
+}
+
+// settingDefaults lists every setting with its default; an empty default
+// means the setting is optional or required as noted in settingRequired.
+var settingDefaults = map[string]string{
+	"name": "", "purpose": "", "scale_from": "", "scale_to": "", "points": "200",
+	"axis": "", "axis_from": "", "axis_to": "", "axis_points": "25", "axis_spacing": "log",
+	"tolerance": "0.1", "currency": "EUR", "recommend": "largest",
+	"prototype_medium": "", "prototype_medium_conditions": "", "prototype_material": "", "prototype_material_conditions": "",
+	"reference_length": "", "reference_speed": "", "max_points": "100000000", "inputs_date": "",
+}
+
+var settingRequired = []string{"scale_from", "scale_to"}
+
+func settingNames() []string {
+	names := make([]string, 0, len(settingDefaults))
+	for k := range settingDefaults {
+		names = append(names, k)
+	}
+	sort.Strings(names)
+	return names
+}
+
+func parseSettings(s *Study, ps *Problems) Settings {
+	st := Settings{cells: map[string]Cell{}}
+	get := func(name string) (Setting, bool) {
+		v, ok := s.Settings[name]
+		if ok {
+			st.cells[name] = v.Cell
+		}
+		if !ok || strings.TrimSpace(v.Value) == "" {
+			return Setting{Name: name, Value: settingDefaults[name], Cell: Cell{Sheet: "Study"}}, false
+		}
+		return v, true
+	}
+	for name, v := range s.Settings {
+		if _, ok := settingDefaults[name]; !ok {
+			ps.Add(Cell{"Study", v.Cell.Row, 1}, "unknown setting %q%s", name, feasibility.Suggest(name, settingNames()))
+		}
+	}
+	for _, name := range settingRequired {
+		if _, ok := get(name); !ok {
+			ps.Add(Cell{Sheet: "Study"}, "setting %q is missing: add a row %s with a positive number", name, name)
+		}
+	}
+	number := func(name string) float64 {
+		v, _ := get(name)
+		if v.Value == "" {
+			return math.NaN()
+		}
+		x, err := strconv.ParseFloat(strings.TrimSpace(v.Value), 64)
+		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
+			ps.Add(v.Cell, "%s: %q is not a number", name, v.Value)
+			return math.NaN()
+		}
+		return x
+	}
+	integer := func(name string, lo, hi int) int {
+		v, _ := get(name)
+		n, err := strconv.Atoi(strings.TrimSpace(v.Value))
+		if err != nil || n < lo || n > hi {
+			ps.Add(v.Cell, "%s: %q must be a whole number from %d to %d", name, v.Value, lo, hi)
+			return lo
+		}
+		return n
+	}
+	text := func(name string) string { v, _ := get(name); return strings.TrimSpace(v.Value) }
+
+	st.Name = text("name")
+	if st.Name == "" {
+		st.Name = s.Name
+	}
+	st.Purpose = text("purpose")
+	st.ScaleFrom, st.ScaleTo = number("scale_from"), number("scale_to")
+	if !math.IsNaN(st.ScaleFrom) && !math.IsNaN(st.ScaleTo) {
+		c, _ := get("scale_from")
+		switch {
+		case st.ScaleFrom <= 0 || st.ScaleTo <= 0:
+			ps.Add(c.Cell, "the scale range must be positive (kL = prototype/model, e.g. 5 to 100 for 1:5 to 1:100), got %v to %v", st.ScaleFrom, st.ScaleTo)
+		case st.ScaleFrom >= st.ScaleTo:
+			ps.Add(c.Cell, "scale_from (%v) must be below scale_to (%v): kL grows as the model shrinks", st.ScaleFrom, st.ScaleTo)
+		}
+	}
+	st.Points = integer("points", 2, 10_000_000)
+	st.Axis = text("axis")
+	if st.Axis != "" {
+		st.AxisFrom, st.AxisTo = number("axis_from"), number("axis_to")
+		st.AxisPoints = integer("axis_points", 2, 100_000)
+		c, _ := get("axis_from")
+		if math.IsNaN(st.AxisFrom) || math.IsNaN(st.AxisTo) {
+			ps.Add(c.Cell, "axis %q needs axis_from and axis_to", st.Axis)
+		} else if st.AxisFrom >= st.AxisTo {
+			ps.Add(c.Cell, "axis_from (%v) must be below axis_to (%v)", st.AxisFrom, st.AxisTo)
+		}
+		switch text("axis_spacing") {
+		case "log":
+			if st.AxisFrom <= 0 {
+				ps.Add(c.Cell, "a log-spaced axis needs a positive range; set axis_spacing to linear")
+			}
+		case "linear":
+			st.AxisLinear = true
+		default:
+			v, _ := get("axis_spacing")
+			ps.Add(v.Cell, "axis_spacing must be log or linear, got %q", v.Value)
+		}
+		st.AxisUnit = feasibility.Unit{Factor: 1}
+		if v, ok := s.Settings["axis_from"]; ok && strings.TrimSpace(v.Unit) != "" {
+			u, err := feasibility.ParseUnit(v.Unit)
+			if err != nil {
+				ps.Add(Cell{"Study", v.Cell.Row, 3}, "%v", err)
+			} else {
+				st.AxisUnit = u
+			}
+		}
+	}
+	st.Tolerance = number("tolerance")
+	if !(st.Tolerance >= 0 && st.Tolerance < 1) {
+		c, _ := get("tolerance")
+		ps.Add(c.Cell, "tolerance must be a fraction from 0 to 1 (0.1 for 10 %%)")
+		st.Tolerance = 0.1
+	}
+	st.Currency = text("currency")
+	st.Recommend = text("recommend")
+	if st.Recommend != "largest" && st.Recommend != "cheapest" {
+		c, _ := get("recommend")
+		ps.Add(c.Cell, "recommend must be largest or cheapest, got %q", st.Recommend)
+	}
+	st.PrototypeMedium, st.PrototypeMediumAt = text("prototype_medium"), text("prototype_medium_conditions")
+	st.PrototypeMaterial, st.PrototypeMaterialAt = text("prototype_material"), text("prototype_material_conditions")
+	st.ReferenceLength, st.ReferenceSpeed = text("reference_length"), text("reference_speed")
+	st.MaxPoints = integer("max_points", 1, math.MaxInt32)
+	st.InputsDate = text("inputs_date")
+	return st
+}
+
+// Cell returns the place of a setting's value.
+func (st Settings) Cell(name string) Cell {
+	if c, ok := st.cells[name]; ok {
+		return c
+	}
+	return Cell{Sheet: "Study"}
+}
