@@ -51,6 +51,9 @@ type ComboResult struct {
 	Required   []PropertyValue
 	Mismatches []MismatchValue
 	Friction   *Friction
+	// CostCurve is the campaign cost at every grid point (nil without
+	// costs).
+	CostCurve []float64
 	// Factors holds the scale factor k of every quantity the strategy
 	// sets, at the recommended scale: the prediction rules.
 	Factors map[string]float64
@@ -470,6 +473,14 @@ func (o *sweepOut) fill(r *ComboResult) {
 	costAt := func(kL float64) (float64, error) { return x.cost(kL) }
 	hasCost := len(x.costs()) > 0
 	if hasCost {
+		r.CostCurve = make([]float64, len(p.Grid))
+		for i, k := range p.Grid {
+			c, err := costAt(k)
+			if err != nil {
+				c = math.NaN()
+			}
+			r.CostCurve[i] = c
+		}
 		cands := []float64{}
 		for _, iv := range r.Window {
 			cands = append(cands, iv.Lo, iv.Hi)
