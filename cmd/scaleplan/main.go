@@ -79,6 +79,7 @@ func commands() []*cli.Command {
 		initCommand(),
 		checkCommand(),
 		rulesCommand(),
+		materialsCommand(),
 		groupsCommand(),
 		versionCommand(),
 	}

@@ -147,11 +147,11 @@ func materialRangesJSON(e materials.Entry) []materialConditionRangeJSON {
 
 func writeMaterialsListJSON(w io.Writer, lib *materials.Library) error {
 	type entryJSON struct {
-		Name            string               `json:"name"`
-		Kind            string               `json:"kind"`
-		Description     string               `json:"description"`
-		Custom          bool                 `json:"custom"`
-		Quantities      []string             `json:"quantities"`
+		Name            string                       `json:"name"`
+		Kind            string                       `json:"kind"`
+		Description     string                       `json:"description"`
+		Custom          bool                         `json:"custom"`
+		Quantities      []string                     `json:"quantities"`
 		ConditionRanges []materialConditionRangeJSON `json:"condition_ranges"`
 	}
 	out := []entryJSON{}
@@ -169,7 +169,7 @@ func writeMaterial(w io.Writer, e materials.Entry, rc materials.Conditions, prop
 	if len(e.Ranges) == 0 {
 		fmt.Fprintln(w, "conditions: none (fixed properties)")
 	} else {
-		fmt.Fprintf(w, "conditions: %s (valid: %s)\n", rc, materialConditionsTaken(e))
+		fmt.Fprintf(w, "conditions: %s\nvalid: %s\n", rc, materialConditionsTaken(e))
 	}
 	fmt.Fprintln(w)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
@@ -190,16 +190,16 @@ func writeMaterialJSON(w io.Writer, e materials.Entry, rc materials.Conditions, 
 		Max float64 `json:"max"`
 	}
 	out := struct {
-		Name            string               `json:"name"`
-		Kind            string               `json:"kind"`
-		Description     string               `json:"description"`
-		Custom          bool                 `json:"custom"`
-		Conditions      map[string]float64   `json:"conditions"`
+		Name            string                       `json:"name"`
+		Kind            string                       `json:"kind"`
+		Description     string                       `json:"description"`
+		Custom          bool                         `json:"custom"`
+		Conditions      map[string]float64           `json:"conditions"`
 		ConditionRanges []materialConditionRangeJSON `json:"condition_ranges"`
-		Properties      map[string]float64   `json:"properties"`
-		Units           map[string]string    `json:"units"`
-		Ranges          map[string]rangeJSON `json:"ranges"`
-		Sources         map[string]string    `json:"sources"`
+		Properties      map[string]float64           `json:"properties"`
+		Units           map[string]string            `json:"units"`
+		Ranges          map[string]rangeJSON         `json:"ranges"`
+		Sources         map[string]string            `json:"sources"`
 	}{
 		Name: e.Name, Kind: string(e.Kind), Description: e.Description, Custom: e.Custom,
 		Conditions: map[string]float64{}, ConditionRanges: materialRangesJSON(e),
