@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"sort"
 	"strings"
 
 	"github.com/xuri/excelize/v2"
@@ -108,6 +109,17 @@ func writeWorkbook(w io.Writer, res *sweep.Result) error {
 		return err
 	}
 	if err := writeLaws(f, res, bold); err != nil {
+		return err
+	}
+	for i, sr := range res.Strategies {
+		if err := writeMap(f, res, sr, i, bold); err != nil {
+			return err
+		}
+	}
+	if err := writeLimits(f, res, bold); err != nil {
+		return err
+	}
+	if err := writeInputs(f, res, bold); err != nil {
 		return err
 	}
 	if err := f.DeleteSheet("Sheet1"); err != nil {
@@ -275,4 +287,235 @@ func unitOf(q string) string {
 		}
 	}
 	return ""
+}
+
+// MaxSheetRows is the row limit of a spreadsheet; map sheets are thinned to
+// stay under it.
+const MaxSheetRows = 1048576
+
+// mapSheetName is a valid, unique sheet name for a strategy's map (sheet
+// names are at most 31 characters and may not hold []:*?/\).
+func mapSheetName(i int, name string) string {
+	clean := strings.Map(func(r rune) rune {
+		if strings.ContainsRune(`[]:*?/\'`, r) {
+			return '_'
+		}
+		return r
+	}, name)
+	prefix := fmt.Sprintf("Map %d ", i+1)
+	if r := []rune(clean); len(r) > 31-len(prefix) {
+		clean = string(r[:31-len(prefix)])
+	}
+	return prefix + clean
+}
+
+// writeMap writes the margin of every combination of a strategy at every
+// grid scale: scale down, combinations across, with a colour scale and the
+// limit that gives each margin.
+func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, bold int) error {
+	grid := res.Plan.Grid
+	header := []string{"scale (1:x)", "kL [-]"}
+	widths := []float64{12, 10}
+	for _, c := range sr.Combos {
+		label := Candidate(c)
+		if c.Case != "" {
+			label = c.Case + ": " + label
+		}
+		header = append(header, "margin [decades] "+label, "limited by ("+label+")")
+		widths = append(widths, 16, 26)
+	}
+	name := mapSheetName(i, sr.Name)
+	s, err := newSheet(f, name, header, widths, bold)
+	if err != nil {
+		return err
+	}
+	step := 1
+	if len(grid)+2 > MaxSheetRows {
+		step = (len(grid) + MaxSheetRows - 3) / (MaxSheetRows - 3)
+	}
+	for gi := 0; gi < len(grid); gi += step {
+		row := []any{sweep.Scale(grid[gi]), sig(grid[gi])}
+		for _, c := range sr.Combos {
+			if c.Margins == nil {
+				row = append(row, "", c.Err)
+				continue
+			}
+			m := c.Margins[gi]
+			lim := "similarity condition"
+			if j := c.Limiting[gi]; j >= 0 && j < len(c.Limits) {
+				lim = c.Limits[j].Name
+			} else if j == -2 {
+				lim = ""
+			}
+			if math.IsInf(m, 0) {
+				row = append(row, "", lim)
+				continue
+			}
+			if m < 0 {
+				lim = "infeasible: " + lim
+			}
+			row = append(row, math.Round(m*1000)/1000, lim)
+		}
+		if err := s.add(row...); err != nil {
+			return err
+		}
+	}
+	if step > 1 {
+		if err := s.add(fmt.Sprintf("grid thinned to every %d-th point to fit the spreadsheet row limit", step)); err != nil {
+			return err
+		}
+	}
+	if err := s.close(false); err != nil {
+		return err
+	}
+	if len(sr.Combos) == 0 {
+		return nil
+	}
+	last, _ := excelize.CoordinatesToCellName(2+2*len(sr.Combos), s.row)
+	var ranges []string
+	for k := range sr.Combos {
+		col, _ := excelize.ColumnNumberToName(3 + 2*k)
+		ranges = append(ranges, fmt.Sprintf("%s2:%s%d", col, col, s.row))
+	}
+	_ = last
+	for _, r := range ranges {
+		err := f.SetConditionalFormat(name, r, []excelize.ConditionalFormatOptions{{
+			Type: "3_color_scale", Criteria: "=", MinType: "min", MidType: "num", MidValue: "0", MaxType: "max",
+			MinColor: "#E66100", MidColor: "#F7F7F7", MaxColor: "#3B75AF",
+		}})
+		if err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// writeLimits lists the limits applied to each strategy's combinations,
+// with their sources.
+func writeLimits(f *excelize.File, res *sweep.Result, bold int) error {
+	header := []string{"strategy", "facility", "limit", "expression", "source", "edge found", "margin at recommended scale [decades]"}
+	s, err := newSheet(f, "Limits", header, []float64{22, 18, 26, 60, 60, 14, 18}, bold)
+	if err != nil {
+		return err
+	}
+	for _, sr := range res.Strategies {
+		seen := map[string]bool{}
+		for _, c := range sr.Combos {
+			for _, l := range c.Limits {
+				key := c.Facility + "\x00" + l.Name
+				if seen[key] {
+					continue
+				}
+				seen[key] = true
+				how := "by bisection (0.1 %)"
+				margin := math.NaN()
+				if l.Linear {
+					how = "exactly"
+					if !math.IsNaN(c.Recommended) {
+						margin = l.A + l.B*math.Log10(c.Recommended)
+					}
+				}
+				if err := s.add(sr.Name, c.Facility, l.Name, l.Expression, l.Source, how, sig(margin)); err != nil {
+					return err
+				}
+			}
+		}
+	}
+	return s.close(true)
+}
+
+// writeInputs echoes every sheet of the study as it was read.
+func writeInputs(f *excelize.File, res *sweep.Result, bold int) error {
+	s, err := newSheet(f, "Inputs", nil, []float64{18, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22}, bold)
+	if err != nil {
+		return err
+	}
+	in := res.Plan.Study
+	block := func(sheet string, rows [][]string) error {
+		head := []any{excelize.Cell{StyleID: bold, Value: "sheet " + sheet}}
+		for _, c := range sweep.Columns[sheet] {
+			head = append(head, excelize.Cell{StyleID: bold, Value: c})
+		}
+		if err := s.add(head...); err != nil {
+			return err
+		}
+		for _, r := range rows {
+			cells := []any{""}
+			for _, v := range r {
+				cells = append(cells, v)
+			}
+			if err := s.add(cells...); err != nil {
+				return err
+			}
+		}
+		return s.add()
+	}
+	var rows [][]string
+	names := make([]string, 0, len(in.Settings))
+	for n := range in.Settings {
+		names = append(names, n)
+	}
+	sort.Strings(names)
+	for _, n := range names {
+		v := in.Settings[n]
+		rows = append(rows, []string{n, v.Value, v.Unit})
+	}
+	if err := block("Study", rows); err != nil {
+		return err
+	}
+	rows = nil
+	for _, r := range in.Prototype {
+		rows = append(rows, []string{r.Name, r.Value, r.Unit, r.ScalesAs})
+	}
+	if err := block("Prototype", rows); err != nil {
+		return err
+	}
+	for _, sh := range []struct {
+		name string
+		rows []sweep.Candidate
+	}{{"Media", in.Media}, {"Materials", in.Materials}} {
+		rows = nil
+		for _, r := range sh.rows {
+			rows = append(rows, []string{r.Name, r.Entry, r.Conditions})
+		}
+		if err := block(sh.name, rows); err != nil {
+			return err
+		}
+	}
+	rows = nil
+	for _, r := range in.Custom {
+		rows = append(rows, []string{r.Entry, r.Kind, r.Property, r.Value, r.Unit, r.Source})
+	}
+	if err := block("Custom", rows); err != nil {
+		return err
+	}
+	rows = nil
+	for _, r := range in.Facilities {
+		rows = append(rows, []string{r.Facility, r.Type, r.Capability, r.Value, r.Unit})
+	}
+	if err := block("Facilities", rows); err != nil {
+		return err
+	}
+	rows = nil
+	for _, r := range in.Strategies {
+		rows = append(rows, []string{r.Strategy, r.Case, r.Technique, r.Retain, r.Relax, r.Untie, r.Given, r.Tuned, r.Fix, r.Media, r.Materials, r.Facilities, r.Correction})
+	}
+	if err := block("Strategies", rows); err != nil {
+		return err
+	}
+	rows = nil
+	for _, r := range in.Limits {
+		rows = append(rows, []string{r.AppliesTo, r.Limit, r.Expression, r.Source})
+	}
+	if err := block("Limits", rows); err != nil {
+		return err
+	}
+	rows = nil
+	for _, r := range in.Costs {
+		rows = append(rows, []string{r.Item, r.Coefficient, r.Per, r.Measure, r.Facility})
+	}
+	if err := block("Costs", rows); err != nil {
+		return err
+	}
+	return s.close(false)
 }

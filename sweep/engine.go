@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"context"
+	"errors"
 	"fmt"
 	"math"
 	"sort"
@@ -250,10 +251,14 @@ type sweepOut struct {
 // limitsFor collects the limits that apply to a combination: the facility
 // type's defaults (unless the study overrides them by name), the study's
 // limits, and the ranges of tuned properties.
-func (x *combo) limitsFor() ([]compiled, []string, error) {
+func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 	p := x.plan
-	var out []compiled
-	var notes []string
+	var skipped []string
+	defer func() {
+		if len(skipped) > 0 {
+			notes = append(notes, "default limits not applied, their names are not in the study: "+strings.Join(skipped, ", "))
+		}
+	}()
 	applies := func(a string) bool {
 		return a == "all" || (x.fac != nil && (a == x.fac.Type || a == x.fac.Name))
 	}
@@ -295,7 +300,12 @@ func (x *combo) limitsFor() ([]compiled, []string, error) {
 			}
 			forms, err := resolve(d.Limit)
 			if err != nil {
-				notes = append(notes, fmt.Sprintf("default limit %q not applied: %v", d.Name, err))
+				var un unknownNameError
+				if errors.As(err, &un) {
+					skipped = append(skipped, fmt.Sprintf("%s (needs %s)", d.Name, un.name))
+				} else {
+					skipped = append(skipped, fmt.Sprintf("%s (%v)", d.Name, err))
+				}
 				continue
 			}
 			add(LimitInfo{Name: d.Name, Expression: d.Expression, Source: d.Source}, d.Limit, forms)

@@ -68,7 +68,9 @@ func TestStudyProblems(t *testing.T) {
 			[]string{`Strategies!G3: modulus is given but the prototype has no modulus`}},
 		{"unknown technique", func(s *Study) { s.Strategies[0].Technique = "complet" },
 			[]string{`Strategies!C2: unknown technique "complet" (did you mean complete?)`}},
-		{"unknown setting", func(s *Study) { s.Settings["scale_form"] = Setting{Name: "scale_form", Value: "3", Cell: Cell{"Study", 20, 2}} },
+		{"unknown setting", func(s *Study) {
+			s.Settings["scale_form"] = Setting{Name: "scale_form", Value: "3", Cell: Cell{"Study", 20, 2}}
+		},
 			[]string{`Study!A20: unknown setting "scale_form" (did you mean scale_from?)`}},
 		{"unknown name in a limit", func(s *Study) {
 			s.Limits = append(s.Limits, LimitRow{AppliesTo: "all", Limit: "odd", Expression: "hull_lenght <= 3 m", Row: 2})
