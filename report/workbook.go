@@ -111,8 +111,12 @@ func writeWorkbook(w io.Writer, res *sweep.Result) error {
 	if err := writeLaws(f, res, bold); err != nil {
 		return err
 	}
+	bins, err := marginStyles(f)
+	if err != nil {
+		return err
+	}
 	for i, sr := range res.Strategies {
-		if err := writeMap(f, res, sr, i, bold); err != nil {
+		if err := writeMap(f, res, sr, i, bold, bins); err != nil {
 			return err
 		}
 	}
@@ -312,7 +316,7 @@ func mapSheetName(i int, name string) string {
 // writeMap writes the margin of every combination of a strategy at every
 // grid scale: scale down, combinations across, with a colour scale and the
 // limit that gives each margin.
-func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, bold int) error {
+func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, bold int, bins []int) error {
 	grid := res.Plan.Grid
 	header := []string{"scale (1:x)", "kL [-]"}
 	widths := []float64{12, 10}
@@ -354,7 +358,7 @@ func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, 
 			if m < 0 {
 				lim = "infeasible: " + lim
 			}
-			row = append(row, math.Round(m*1000)/1000, lim)
+			row = append(row, excelize.Cell{StyleID: bins[marginBin(m)], Value: math.Round(m*1000) / 1000}, lim)
 		}
 		if err := s.add(row...); err != nil {
 			return err
@@ -365,29 +369,7 @@ func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, 
 			return err
 		}
 	}
-	if err := s.close(false); err != nil {
-		return err
-	}
-	if len(sr.Combos) == 0 {
-		return nil
-	}
-	last, _ := excelize.CoordinatesToCellName(2+2*len(sr.Combos), s.row)
-	var ranges []string
-	for k := range sr.Combos {
-		col, _ := excelize.ColumnNumberToName(3 + 2*k)
-		ranges = append(ranges, fmt.Sprintf("%s2:%s%d", col, col, s.row))
-	}
-	_ = last
-	for _, r := range ranges {
-		err := f.SetConditionalFormat(name, r, []excelize.ConditionalFormatOptions{{
-			Type: "3_color_scale", Criteria: "=", MinType: "min", MidType: "num", MidValue: "0", MaxType: "max",
-			MinColor: "#E66100", MidColor: "#F7F7F7", MaxColor: "#3B75AF",
-		}})
-		if err != nil {
-			return err
-		}
-	}
-	return nil
+	return s.close(false)
 }
 
 // writeLimits lists the limits applied to each strategy's combinations,
@@ -518,4 +500,38 @@ func writeInputs(f *excelize.File, res *sweep.Result, bold int) error {
 		return err
 	}
 	return s.close(false)
+}
+
+// marginEdges are the bin edges of the map colour scale, in decades.
+var marginEdges = []float64{-1, -0.5, -0.2, 0, 0.2, 0.5, 1}
+
+// mapColors is our colour scale for margins: oranges for infeasible
+// points, blues for feasible ones, light near the boundary. Orange against
+// blue stays distinct for the common red–green colour-vision deficiencies,
+// and the lightness steps read in grey print too.
+var mapColors = []string{"C4511B", "E3894F", "F2BE94", "FBE3CF", "D6E4F0", "9FC3DE", "5B95C4", "2A5F96"}
+
+func marginBin(m float64) int {
+	for i, e := range marginEdges {
+		if m < e {
+			return i
+		}
+	}
+	return len(marginEdges)
+}
+
+func marginStyles(f *excelize.File) ([]int, error) {
+	ids := make([]int, len(mapColors))
+	for i, c := range mapColors {
+		font := &excelize.Font{Color: "000000"}
+		if i == 0 || i == len(mapColors)-1 || i == len(mapColors)-2 {
+			font.Color = "FFFFFF"
+		}
+		id, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{c}}, Font: font, NumFmt: 2})
+		if err != nil {
+			return nil, err
+		}
+		ids[i] = id
+	}
+	return ids, nil
 }
