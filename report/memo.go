@@ -94,6 +94,15 @@ func Memo(res *sweep.Result) string {
 				}
 			}
 		}
+		if !math.IsNaN(rec.AddedMass) {
+			fmt.Fprintf(b, "- Added mass: dummy weights must raise the model material's density by %s kg/m³, %s kg in total at the recommended scale.\n",
+				Num3(rec.AddedDensity), Num3(rec.AddedMass))
+		}
+		for _, n := range rec.Notes {
+			if strings.HasPrefix(n, "Poisson") {
+				fmt.Fprintf(b, "- %s.\n", n)
+			}
+		}
 		b.WriteString("\n## Prediction rules\n\n")
 		b.WriteString("A model measurement times the multiplier gives the prototype value.\n\n| quantity | scale law | multiplier |\n|---|---|---|\n")
 		sol := caseSolution(recS, rec)

@@ -52,6 +52,14 @@ type ComboResult struct {
 	Required   []PropertyValue
 	Mismatches []MismatchValue
 	Friction   *Friction
+	// AddedMass is the mass dummy weights must add to the model at the
+	// recommended scale, kg (NaN when no density is required), and
+	// AddedDensity the same per unit volume of the model material.
+	AddedMass, AddedDensity float64
+	// PoissonFlag is set when the model material's Poisson's ratio differs
+	// from the prototype's beyond the study's tolerance and the strategy
+	// does not relax transverse deformation.
+	PoissonFlag bool
 	// CostCurve is the campaign cost at every grid point (nil without
 	// costs).
 	CostCurve []float64
@@ -85,6 +93,10 @@ type PropertyValue struct {
 	AtRecommended float64
 	Matches       []string // library entries that meet it within tolerance
 	Tuned         bool
+	// Own is the candidate's own value of the property (NaN if it has
+	// none); a device (added mass, springs, a backbone beam) supplies the
+	// difference.
+	Own float64
 }
 
 // MismatchValue is a relaxed group's mismatch π_p/π_m at the recommended
@@ -155,7 +167,8 @@ func name(c *Candidate2) string {
 func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float64) *ComboResult {
 	r := &ComboResult{Strategy: c.Strategy, Case: c.Case, Technique: c.Technique,
 		Medium: name(m), Material: name(mat), Axis: math.NaN(), Recommended: math.NaN(), Largest: math.NaN(),
-		Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN()}
+		Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN(),
+		AddedMass: math.NaN(), AddedDensity: math.NaN()}
 	if f != nil {
 		r.Facility = f.Name
 	}
@@ -540,6 +553,21 @@ func (o *sweepOut) fill(r *ComboResult) {
 			continue
 		}
 		pv.AtLo, pv.AtHi, pv.AtRecommended = f.at(lo), f.at(hi), f.at(ln)
+		pv.Own = math.NaN()
+		if own, ok := x.modelProperty(q); ok {
+			pv.Own = own
+		}
+		if q == "density" && !math.IsNaN(pv.Own) {
+			r.AddedDensity = pv.AtRecommended - pv.Own
+			for _, n := range p.ItemOrder {
+				if it := p.Items[n]; it.ScalesAs == "mass" {
+					if fm, err := x.form(n); err == nil {
+						r.AddedMass = fm.at(ln) * (1 - pv.Own/pv.AtRecommended)
+					}
+					break
+				}
+			}
+		}
 		if x.cas.Technique == "substitute" {
 			pv.Matches = p.libraryMatches(q, pv.AtLo, pv.AtHi)
 		}
@@ -559,6 +587,10 @@ func (o *sweepOut) fill(r *ComboResult) {
 		} else {
 			r.Notes = append(r.Notes, fmt.Sprintf("relaxed %s: give %s to evaluate the %s mismatch", m.Law, strings.Join(m.Missing, ", "), m.Group))
 		}
+	}
+	if note := x.poissonNote(); note != "" {
+		r.Notes = append(r.Notes, note)
+		r.PoissonFlag = true
 	}
 	if x.cas.Correction == "ittc1957" {
 		r.Friction = x.friction(ln)
@@ -679,12 +711,16 @@ func (p *Plan) joint(st *PlanStrategy, combos []*ComboResult) []*ComboResult {
 		}
 		j := &ComboResult{Strategy: st.Name, Case: "all cases (" + strings.Join(parts, " + ") + ")", Technique: st.Technique,
 			Facility: f, Axis: math.NaN(), Window: toWindow(win), Recommended: math.NaN(), Largest: math.NaN(),
-			Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN()}
+			Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN(),
+			AddedMass: math.NaN(), AddedDensity: math.NaN()}
 		if j.Window.Empty() {
 			j.Failing = "no scale serves every case in this facility"
 		} else {
 			j.Largest = j.Window.Largest()
 			j.Recommended = j.Largest
+			if it, ok := p.Items[p.Settings.ReferenceLength]; ok && it.ScalesAs == "length" {
+				j.ModelLength = it.Value / j.Recommended
+			}
 		}
 		out = append(out, j)
 	}
@@ -744,4 +780,22 @@ func (p *Plan) best(sr *StrategyResult) *ComboResult {
 		}
 	}
 	return b
+}
+
+// poissonNote flags a model material whose Poisson's ratio differs from
+// the prototype's beyond the study's tolerance, unless the strategy
+// relaxes transverse deformation (relax: poisson).
+func (x *combo) poissonNote() string {
+	if x.cas.RelaxPoisson || x.material == nil {
+		return ""
+	}
+	pm, ok := x.material.Props["poisson"]
+	pp, ok2 := x.plan.Proto["poisson"]
+	if !ok || !ok2 || pp == 0 {
+		return ""
+	}
+	if d := math.Abs(pm.Value-pp) / pp; d > x.plan.Settings.Tolerance {
+		return fmt.Sprintf("Poisson's ratio of %s (%.3g) differs from the prototype's (%.3g) by %.0f %%: transverse deformation is not similar; relax it (relax: poisson) or choose a material closer in Poisson's ratio", x.material.Name, pm.Value, pp, 100*d)
+	}
+	return ""
 }

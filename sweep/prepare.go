@@ -84,7 +84,11 @@ type PlanCase struct {
 	Media, Materials          []*Candidate2
 	Facilities                []*Facility
 	Correction                string
-	Row                       int
+	// RelaxPoisson is set by "poisson" in the relax column: transverse
+	// deformation is not modelled, so no Poisson's-ratio mismatch is
+	// flagged.
+	RelaxPoisson bool
+	Row          int
 }
 
 // PlanLimit is a limit of the study sheet.
@@ -430,8 +434,13 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			}
 			return names
 		}
+		relax := splitNames(r.Relax)
+		if i := slices.Index(relax, "poisson"); i >= 0 {
+			c.RelaxPoisson = true
+			relax = slices.Delete(relax, i, i+1)
+		}
 		strat := feasibility.Strategy{
-			Retain: lawCol("retain", r.Retain), Relax: lawCol("relax", r.Relax),
+			Retain: lawCol("retain", r.Retain), Relax: lawCol("relax", strings.Join(relax, ",")),
 			Untie: qCol("untie", r.Untie), Given: qCol("given", r.Given), Tuned: qCol("tuned", r.Tuned),
 		}
 		for _, item := range splitNames(r.Fix) {
@@ -640,14 +649,14 @@ func (p *Plan) prepareLimits(ps *Problems) {
 			pl.Source = "study"
 		}
 		// Dimension-check against every facility it applies to (or none).
-		targets := []*Facility{nil}
+		var targets []*Facility
 		for _, f := range p.Facilities {
 			if applies == "all" || applies == f.Type || applies == f.Name {
 				targets = append(targets, f)
 			}
 		}
-		if applies != "all" {
-			targets = targets[1:]
+		if len(targets) == 0 {
+			targets = []*Facility{nil}
 		}
 		for _, f := range targets {
 			if err := l.Check(p.dimResolver(f)); err != nil {
