@@ -69,11 +69,11 @@ func Memo(res *sweep.Result) string {
 		b.WriteString("\n\n")
 
 		b.WriteString("## Scale effects and corrections\n\n")
-		if len(rec.Mismatches) == 0 && rec.Friction == nil {
+		if len(recS.Cases) > 0 && len(recS.Cases[0].Solution.Strategy.Relax) == 0 {
 			b.WriteString("The strategy relaxes no law; scale effects beyond the laws modelled remain.\n")
 		}
 		for _, m := range rec.Mismatches {
-			fmt.Fprintf(b, "- The %s (law %s relaxed) is %s times larger in the prototype than in the model.\n", m.Group, m.Law, Num3(m.Ratio))
+			fmt.Fprintf(b, "- The %s (law %s relaxed) is not matched: prototype / model = %s.\n", m.Group, m.Law, Num3(m.Ratio))
 		}
 		if f := rec.Friction; f != nil {
 			fmt.Fprintf(b, "- Skin friction is corrected with the ITTC-1957 line: C_F = %.4g in the model (Re %.3g) and %.4g at full scale (Re %.3g), a correction of ΔC_F = %.4g.\n",
@@ -93,6 +93,9 @@ func Memo(res *sweep.Result) string {
 					fmt.Fprintf(b, "  Library entries that meet it: %s.\n", strings.Join(pv.Matches, ", "))
 				}
 			}
+		}
+		for _, m := range rec.Measures {
+			fmt.Fprintf(b, "- %s: %s %s at the recommended scale (%s to %s across the window).\n", m.Name, Num3(m.AtRecommended), m.Unit, Num3(m.AtLo), Num3(m.AtHi))
 		}
 		if !math.IsNaN(rec.AddedMass) {
 			fmt.Fprintf(b, "- Added mass: dummy weights must raise the model material's density by %s kg/m³, %s kg in total at the recommended scale.\n",

@@ -205,7 +205,7 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 	header := []string{"strategy", "case", "technique", "medium", "material", "facility", "axis value [SI]",
 		"window (1:x)", "from kL [-]", "to kL [-]", "large-model edge set by", "small-model edge set by",
 		"recommended (1:x)", "recommended kL [-]", "model length [m]", "cost [" + res.Plan.Settings.Currency + "]",
-		"cheapest kL [-]", "required at recommended scale", "relaxed groups π_p/π_m", "notes"}
+		"cheapest kL [-]", "required and measured at recommended scale (model values, SI unless stated)", "relaxed groups π_p/π_m", "notes"}
 	widths := []float64{22, 16, 14, 16, 16, 18, 12, 22, 11, 11, 26, 26, 14, 12, 12, 12, 12, 40, 40, 60}
 	s, err := newSheet(f, "Windows", header, widths, bold)
 	if err != nil {
@@ -228,6 +228,12 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 					q += " (no library entry meets it)"
 				}
 				req = append(req, q)
+			}
+			for _, m := range c.Measures {
+				req = append(req, fmt.Sprintf("%s %s %s", m.Name, Num3(m.AtRecommended), m.Unit))
+			}
+			if !math.IsNaN(c.AddedMass) {
+				req = append(req, fmt.Sprintf("added mass %s kg (%s kg/m^3)", Num3(c.AddedMass), Num3(c.AddedDensity)))
 			}
 			var mm []string
 			for _, m := range c.Mismatches {

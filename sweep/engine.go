@@ -60,6 +60,8 @@ type ComboResult struct {
 	// from the prototype's beyond the study's tolerance and the strategy
 	// does not relax transverse deformation.
 	PoissonFlag bool
+	// Measures are the study's measures at model scale.
+	Measures []MeasureValue
 	// CostCurve is the campaign cost at every grid point (nil without
 	// costs).
 	CostCurve []float64
@@ -97,6 +99,13 @@ type PropertyValue struct {
 	// none); a device (added mass, springs, a backbone beam) supplies the
 	// difference.
 	Own float64
+}
+
+// MeasureValue is a study measure at model scale, in its unit, at the
+// window edges and at the recommended scale.
+type MeasureValue struct {
+	Name, Unit                string
+	AtLo, AtHi, AtRecommended float64
 }
 
 // MismatchValue is a relaxed group's mismatch π_p/π_m at the recommended
@@ -587,6 +596,25 @@ func (o *sweepOut) fill(r *ComboResult) {
 		} else {
 			r.Notes = append(r.Notes, fmt.Sprintf("relaxed %s: give %s to evaluate the %s mismatch", m.Law, strings.Join(m.Missing, ", "), m.Group))
 		}
+	}
+	for _, m := range p.Measures {
+		mv := MeasureValue{Name: m.Name, Unit: m.Unit.Text}
+		var ferr error
+		at := func(l float64) float64 {
+			return m.Expr.Eval(func(n string) float64 {
+				f, err := x.form(n)
+				if err != nil && ferr == nil {
+					ferr = err
+				}
+				return f.at(l)
+			}) / m.Unit.Factor
+		}
+		mv.AtLo, mv.AtHi, mv.AtRecommended = at(lo), at(hi), at(ln)
+		if ferr != nil {
+			r.Notes = append(r.Notes, fmt.Sprintf("measure %s: %v", m.Name, ferr))
+			continue
+		}
+		r.Measures = append(r.Measures, mv)
 	}
 	if note := x.poissonNote(); note != "" {
 		r.Notes = append(r.Notes, note)

@@ -36,6 +36,7 @@ type Plan struct {
 	Strategies []*PlanStrategy
 	Limits     []*PlanLimit // study limits (added or overriding)
 	Costs      []*PlanCost
+	Measures   []*PlanMeasure
 	Catalog    *FacilityCatalog
 	Library    *materials.Library
 	Grid       []float64 // kL values
@@ -108,6 +109,14 @@ type PlanCost struct {
 	Row         int
 }
 
+// PlanMeasure is a measure to report, in its unit.
+type PlanMeasure struct {
+	Name string
+	Expr *feasibility.Expr
+	Unit feasibility.Unit
+	Row  int
+}
+
 // Prepare checks a study against the library, the laws, the facility
 // catalogue and the units, and returns every problem at once.
 func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, error) {
@@ -123,6 +132,7 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.prepareStrategies(&ps)
 	p.prepareLimits(&ps)
 	p.prepareCosts(&ps)
+	p.prepareMeasures(&ps)
 	if len(ps) == 0 {
 		p.buildGrid(&ps)
 	}
@@ -813,7 +823,7 @@ func (p *Plan) buildGrid(ps *Problems) {
 		}
 	}
 	if n := float64(total) * float64(combos); n > float64(st.MaxPoints) {
-		ps.Add(st.Cell("points"), "the sweep has %.3g points (%d grid points × %d combinations), more than max_points = %d: reduce points or raise max_points on the Study sheet", n, total, combos, st.MaxPoints)
+		ps.Add(st.Cell("points"), "the sweep has %.3g points (%d grid points × %d combinations), more than %d: %s", n, total, combos, st.MaxPoints, tooManyPoints(n))
 		return
 	}
 	p.Grid = geomGrid(st.ScaleFrom, st.ScaleTo, st.Points)
@@ -842,4 +852,44 @@ func geomGrid(a, b float64, n int) []float64 {
 	}
 	g[n-1] = b
 	return g
+}
+
+func (p *Plan) prepareMeasures(ps *Problems) {
+	for _, r := range p.Study.Measures {
+		m := &PlanMeasure{Name: strings.TrimSpace(r.Measure), Row: r.Row, Unit: feasibility.Unit{Factor: 1}}
+		if m.Name == "" {
+			ps.Add(At("Measures", r.Row, "measure"), "the measure has no name")
+			continue
+		}
+		e, err := feasibility.ParseExpr(r.Expression)
+		if err != nil {
+			ps.Add(At("Measures", r.Row, "expression"), "%v", err)
+			continue
+		}
+		m.Expr = e
+		if u := strings.TrimSpace(r.Unit); u != "" && u != "1" {
+			pu, err := feasibility.ParseUnit(u)
+			if err != nil {
+				ps.Add(At("Measures", r.Row, "unit"), "%v", err)
+				continue
+			}
+			m.Unit = pu
+		}
+		targets := p.Facilities
+		if len(targets) == 0 {
+			targets = []*Facility{nil}
+		}
+		for _, f := range targets {
+			d, err := e.Dim(p.dimResolver(f))
+			if err != nil {
+				ps.Add(At("Measures", r.Row, "expression"), "%v", err)
+				break
+			}
+			if !d.Equal(m.Unit.Dim) {
+				ps.Add(At("Measures", r.Row, "unit"), "the measure has dimension %s but the unit %q is %s", d, r.Unit, m.Unit.Dim)
+				break
+			}
+		}
+		p.Measures = append(p.Measures, m)
+	}
 }

@@ -327,5 +327,7 @@ func (r *sheetReader) store(n int, v []string) {
 		s.Limits = append(s.Limits, LimitRow{AppliesTo: v[0], Limit: v[1], Expression: v[2], Source: v[3], Row: n})
 	case "Costs":
 		s.Costs = append(s.Costs, CostRow{Item: v[0], Coefficient: v[1], Per: v[2], Measure: v[3], Facility: v[4], Row: n})
+	case "Measures":
+		s.Measures = append(s.Measures, MeasureRow{Measure: v[0], Expression: v[1], Unit: v[2], Row: n})
 	}
 }

@@ -7,7 +7,7 @@ import (
 
 // Sheet names of a study, in the order they appear in a workbook. A folder
 // study holds one NAME.csv per sheet.
-var SheetNames = []string{"Study", "Prototype", "Media", "Materials", "Custom", "Facilities", "Strategies", "Limits", "Costs"}
+var SheetNames = []string{"Study", "Prototype", "Media", "Materials", "Custom", "Facilities", "Strategies", "Limits", "Costs", "Measures"}
 
 // Columns of each sheet, in order; the header row of a sheet must name them
 // (extra columns to the right are ignored, so users may add notes).
@@ -21,6 +21,7 @@ var Columns = map[string][]string{
 	"Strategies": {"strategy", "case", "technique", "retain", "relax", "untie", "given", "tuned", "fix", "media", "materials", "facilities", "correction", "note"},
 	"Limits":     {"applies_to", "limit", "expression", "source"},
 	"Costs":      {"item", "coefficient", "per", "measure", "facility", "note"},
+	"Measures":   {"measure", "expression", "unit", "note"},
 }
 
 // RequiredSheets must be present; the others may be missing or empty.
@@ -103,6 +104,14 @@ type Study struct {
 	Strategies []StrategyRow
 	Limits     []LimitRow
 	Costs      []CostRow
+	Measures   []MeasureRow
+}
+
+// MeasureRow is a measure the study asks to be reported at model scale
+// (a stiffness per spring, a model Reynolds number), in a unit.
+type MeasureRow struct {
+	Measure, Expression, Unit string
+	Row                       int
 }
 
 // Setting is one row of the Study sheet.

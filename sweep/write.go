@@ -86,6 +86,10 @@ func sheetRecords(s *Study, sheet string) []record {
 		for _, v := range s.Costs {
 			add(v.Row, v.Item, v.Coefficient, v.Per, v.Measure, v.Facility)
 		}
+	case "Measures":
+		for _, v := range s.Measures {
+			add(v.Row, v.Measure, v.Expression, v.Unit)
+		}
 	}
 	placeRows(recs)
 	return recs
@@ -214,10 +218,11 @@ const (
 // message naming the allowed names where a cell takes a list of them), and
 // last a Lists sheet holding the names the drop-down lists offer.
 //
-// Every value that is not a plain decimal number is written as text (a
-// shared string), never as a formula, so "=SUM(A1)", "+1", "-x" or "@a"
-// stay text; a plain decimal number ("25", "-0.5", "1025.3") is written
-// as a number, which reads back exactly. The workbook is written to a
+// Every value is written as text (a shared string, with SetCellStr), never
+// as a formula, so "=SUM(A1)", "+1", "-x", "-0.5" or "@a" stay text;
+// except that a plain unsigned decimal number ("25", "1025.3") is written
+// as a number, so the sheet shows no "number stored as text" warnings, and
+// reads back exactly as it was. The workbook is written to a
 // temporary file and renamed, and the same study and lists give the same
 // bytes.
 func WriteXLSX(p string, s *Study, lists Lists) error {
@@ -229,17 +234,19 @@ func WriteXLSX(p string, s *Study, lists Lists) error {
 	return writeAtomic(p, func(w io.Writer) error { return f.Write(w) })
 }
 
-// plainNumber reports whether v is a decimal number that excelize stores
-// and reads back exactly as typed.
+// plainNumber reports whether v is a plain decimal number that excelize
+// stores and reads back exactly as typed. A value beginning with =, +, -
+// or @ is never one (so "-0.5" is written as text, like every value a
+// spreadsheet program might take for a formula).
 func plainNumber(v string) (float64, bool) {
-	if v == "" || len(v) > 24 || strings.ContainsAny(v, "eEInfinfa_xX+") {
+	if v == "" || len(v) > 24 || strings.ContainsAny(v[:1], "=+-@") || strings.ContainsAny(v, "eEInfinfa_xX") {
 		return 0, false
 	}
 	x, err := strconv.ParseFloat(v, 64)
 	if err != nil || strconv.FormatFloat(x, 'f', -1, 64) != v {
 		return 0, false
 	}
-	digits := strings.TrimLeft(strings.NewReplacer("-", "", ".", "").Replace(v), "0")
+	digits := strings.TrimLeft(strings.ReplaceAll(v, ".", ""), "0")
 	if len(digits) > 15 {
 		return 0, false // excelize would round it to Excel's 15 digits
 	}
@@ -524,6 +531,7 @@ var instructions = []string{
 	"Strategies: the similitude strategies to compare, one row per strategy, or per case of a special-cases strategy (strategy, case, technique, the laws retained and relaxed, the quantities untied, the properties given, tuned or fixed, the candidate media, materials and facilities, and a known correction).",
 	"Limits: limits added to the defaults of the facility types, or overriding a default of the same name (applies_to, limit, expression, source), e.g. design_speed * hull_length / kinematic_viscosity >= 2e6; give the source of each.",
 	"Costs: cost items (item, coefficient, per, measure, facility): coefficient × the measure in units of per, e.g. a facility rate per hour.",
+	"Measures: measures to report at model scale (measure, expression, unit), e.g. stiffness / springs in N/m for the stiffness of each spring.",
 	"Lists: the names the drop-down lists offer (laws, quantities, library entries, facility types, techniques). It is not read back.",
 }
 
