@@ -70,7 +70,7 @@ func Money(x float64, currency string) string {
 func WriteRunText(w io.Writer, res *sweep.Result) error {
 	b := &strings.Builder{}
 	st := res.Plan.Settings
-	fmt.Fprintf(b, "Study %s (scale 1:x means kL = x; %s)\n", res.Name, Convention)
+	fmt.Fprintf(b, "Study %s (%s)\n", res.Name, Convention)
 	tw := tabwriter.NewWriter(b, 2, 4, 2, ' ', 0)
 	fmt.Fprintln(tw, "strategy\ttechnique\twindow\tlarge-model edge\tsmall-model edge\trecommended\tmodel length\tcost\tbest candidate")
 	for _, sr := range res.Strategies {
