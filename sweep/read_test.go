@@ -433,7 +433,7 @@ func TestLoadXLSXProblems(t *testing.T) {
 		{"valid", func(*testing.T) []byte { return valid }, nil},
 		{"missing sheet", func(t *testing.T) []byte {
 			return workbook(t, sampleStudy(), func(f *excelize.File) { f.DeleteSheet("Strategies") })
-		}, []string{"Strategies: sheet missing: the workbook has no sheet named Strategies"}},
+		}, []string{"Strategies: sheet missing: the workbook has no worksheet named Strategies"}},
 		{"missing optional sheet", func(t *testing.T) []byte {
 			return workbook(t, sampleStudy(), func(f *excelize.File) { f.DeleteSheet("Costs") })
 		}, nil},

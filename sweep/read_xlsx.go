@@ -16,6 +16,10 @@ import (
 	"github.com/xuri/excelize/v2"
 )
 
+// maxParts bounds the number of parts (zip entries) of a workbook: a study
+// has about twenty.
+const maxParts = 10000
+
 // loadXLSX reads a workbook study.
 func loadXLSX(p, base string) (*Study, error) {
 	file := filepath.Base(p)
@@ -73,6 +77,10 @@ func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 		}
 		return finish(s, base, ps)
 	}
+	if len(zr.File) > maxParts {
+		ps.Add(whole, "the workbook holds %d parts; a study workbook holds a few dozen: refused", len(zr.File))
+		return finish(s, base, ps)
+	}
 	var unpacked uint64
 	for _, f := range zr.File {
 		unpacked += min(f.UncompressedSize64, 1<<62)
@@ -120,7 +128,7 @@ func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 		part, ok := parts[strings.ToLower(name)]
 		if name == "" || !ok {
 			if isRequired(sheet) {
-				ps.Add(Cell{Sheet: sheet}, "sheet missing: the workbook has no sheet named %s", sheet)
+				ps.Add(Cell{Sheet: sheet}, "sheet missing: the workbook has no worksheet named %s", sheet)
 			}
 			continue
 		}
@@ -331,8 +339,8 @@ type relationships struct {
 
 // sheetParts maps each worksheet's name, in lower case, to its part in the
 // package, the way a spreadsheet program finds it: the package
-// relationships name the workbook, whose relationships name the sheets and
-// the shared strings (sst, nil if there are none).
+// relationships name the workbook, whose relationships name the sheets. sst
+// is the shared strings part (nil if there is none).
 func sheetParts(zr *zip.Reader) (sheets map[string]*zip.File, sst *zip.File, err error) {
 	files := map[string]*zip.File{}
 	for _, f := range zr.File {
@@ -383,11 +391,9 @@ func sheetParts(zr *zip.Reader) (sheets map[string]*zip.File, sst *zip.File, err
 	if err := read(relsName, &rels); err != nil {
 		return nil, nil, err
 	}
-	for _, r := range rels.Rel {
-		if strings.HasSuffix(r.Type, "/sharedStrings") {
-			sst = files[strings.ToLower(resolve(workbook, r.Target))]
-		}
-	}
+	// excelize reads the shared strings from this fixed part, whatever the
+	// relationships say; so does the check of references to them.
+	sst = files["xl/sharedstrings.xml"]
 	parts := map[string]*zip.File{}
 	for _, sh := range wb.Sheets {
 		for _, r := range rels.Rel {

@@ -137,7 +137,7 @@ func TestFormulaLookingText(t *testing.T) {
 	}
 	defer f.Close()
 	for _, tt := range []struct{ cell, want string }{
-		{"B8", "=SUM(A1)"}, {"B9", "+1"}, {"B10", "-x"}, {"B11", "@a"}, {"B12", "007"}, {"B5", "1.2e4"},
+		{"B8", "=SUM(A1)"}, {"B9", "+1"}, {"B10", "-x"}, {"B11", "@a"}, {"B12", "007"}, {"B5", "1.2e4"}, {"B6", "-0.5"},
 	} {
 		formula, err := f.GetCellFormula("Prototype", tt.cell)
 		if err != nil || formula != "" {
@@ -152,7 +152,7 @@ func TestFormulaLookingText(t *testing.T) {
 		}
 	}
 	// Plain numbers are numbers.
-	for _, cell := range []string{"B2", "B6", "B13"} {
+	for _, cell := range []string{"B2", "B3", "B13"} {
 		if typ, _ := f.GetCellType("Prototype", cell); typ != excelize.CellTypeUnset && typ != excelize.CellTypeNumber {
 			t.Errorf("%s: cell type %v, want a number", cell, typ)
 		}
@@ -167,7 +167,7 @@ func TestPlainNumber(t *testing.T) {
 		v  string
 		ok bool
 	}{
-		{"25", true}, {"-0.5", true}, {"1025.3", true}, {"0.000001", true}, {"0", true},
+		{"25", true}, {"-0.5", false}, {"-1", false}, {"@1", false}, {"=1", false}, {"1025.3", true}, {"0.000001", true}, {"0", true},
 		{"1e3", false}, {"1.50", false}, {"007", false}, {"+1", false}, {"-", false}, {"", false},
 		{"Inf", false}, {"NaN", false}, {"0x10", false}, {"1_000", false}, {" 1", false}, {"1,5", false},
 		{"12345678901234567890", false}, {"123456789012345", true}, {"0.1234567890123456", false},

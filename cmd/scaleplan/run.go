@@ -3,10 +3,13 @@ package main
 import (
 	"context"
 	"fmt"
+	"math"
 	"os"
 	"os/signal"
 	"path/filepath"
+	"strconv"
 	"strings"
+	"syscall"
 
 	"github.com/urfave/cli/v2"
 
@@ -18,15 +21,21 @@ func runCommand() *cli.Command {
 	return &cli.Command{
 		Name:      "run",
 		Usage:     "sweep studies and write workbooks, maps and memos",
-		UsageText: "scaleplan run [STUDY ...] [--out DIR] [--json]",
+		UsageText: "scaleplan run [STUDY ...] [--out DIR] [--json] [--max-points N]",
 		Description: "Each STUDY is an .xlsx workbook or a folder of .csv sheets. With no STUDY the built-in demo\n" +
 			"scenarios run. Studies run in parallel; per study a workbook is written to the output folder and\n" +
-			"a short table is printed (--json prints the same as data).",
+			"a short table is printed (--json prints the same as data). Outputs are written to temporary files\n" +
+			"and renamed when complete; an interrupt (Ctrl-C) stops the batch and leaves no partial file.",
 		Flags: []cli.Flag{
 			&cli.StringFlag{Name: "out", Value: "scaleplan-out", Usage: "output folder"},
 			&cli.BoolFlag{Name: "json", Usage: "print the results as JSON"},
+			&cli.StringFlag{Name: "max-points", Usage: "allow sweeps of up to N points (grid points × combinations), overriding each study's max_points (default 1e8)"},
 		},
 		Action: func(c *cli.Context) error {
+			maxPoints, err := parseMaxPoints(c.String("max-points"))
+			if err != nil {
+				return err
+			}
 			cat, err := sweep.NewFacilityCatalog()
 			if err != nil {
 				return err
@@ -39,25 +48,37 @@ func runCommand() *cli.Command {
 					return err
 				}
 				for _, s := range list {
-					jobs = append(jobs, sweep.Job{Name: s.Name, Load: func() (*sweep.Study, error) { return sweep.LoadScenario(s.Name) }})
+					jobs = append(jobs, sweep.Job{Name: s.Name, Load: func() (*sweep.Study, error) { return sweep.LoadScenario(s.Name) }, MaxPoints: maxPoints})
 				}
 			}
 			for _, path := range c.Args().Slice() {
-				jobs = append(jobs, sweep.Job{Name: path, Load: func() (*sweep.Study, error) { return sweep.Load(path) }})
+				jobs = append(jobs, sweep.Job{Name: path, Load: func() (*sweep.Study, error) { return sweep.Load(path) }, MaxPoints: maxPoints})
 				inputs = append(inputs, path)
 			}
 			out := c.String("out")
 			if err := refuseInputAsOutput(out, inputs); err != nil {
 				return err
 			}
+			if err := refuseRepeatedInputs(inputs); err != nil {
+				return err
+			}
 			if err := os.MkdirAll(out, 0o755); err != nil {
 				return fmt.Errorf("output folder %s: %v", out, err)
 			}
-			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt)
+			// An interrupt cancels ctx: the batch stops, and no output is
+			// written after it (WriteStudy leaves no partial file).
+			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
 			defer stop()
 			outcomes := sweep.RunBatch(ctx, jobs, cat)
+			if ctx.Err() != nil {
+				return interrupted(0, len(outcomes))
+			}
+			if err := refuseSharedOutputs(outcomes); err != nil {
+				return err
+			}
 			var data []any
 			var failed []string
+			written := 0
 			for _, o := range outcomes {
 				if o.Err != nil {
 					failed = append(failed, fmt.Sprintf("%s:\n%s", o.Name, indent(o.Err.Error())))
@@ -65,8 +86,12 @@ func runCommand() *cli.Command {
 				}
 				files, err := report.WriteStudy(ctx, out, o.Result)
 				if err != nil {
+					if ctx.Err() != nil {
+						return interrupted(written, len(outcomes))
+					}
 					return err
 				}
+				written++
 				if c.Bool("json") {
 					data = append(data, report.RunData(o.Result, files))
 				} else {
@@ -94,20 +119,127 @@ func indent(s string) string {
 	return "  " + strings.ReplaceAll(s, "\n", "\n  ")
 }
 
-// refuseInputAsOutput makes sure no output can be written over a study.
+// parseMaxPoints reads --max-points: "" (the studies' own max_points), or
+// a whole number from 1 to sweep.MaxPointsLimit, also written 1e9.
+func parseMaxPoints(s string) (int, error) {
+	s = strings.TrimSpace(s)
+	if s == "" {
+		return 0, nil
+	}
+	x, err := strconv.ParseFloat(s, 64)
+	if err != nil || x != math.Trunc(x) || x < 1 || x > sweep.MaxPointsLimit {
+		return 0, usagef("--max-points: %q must be a whole number from 1 to %d (e.g. 1e9)", s, sweep.MaxPointsLimit)
+	}
+	return int(x), nil
+}
+
+// interrupted is the error of a batch stopped by an interrupt.
+func interrupted(written, total int) error {
+	return fmt.Errorf("interrupted: %d of %d studies were written before the interrupt, the rest not at all (no partial file is left)", written, total)
+}
+
+// resolve is a path made absolute with its symbolic links followed, as far
+// as it exists (an output folder may not exist yet).
+func resolve(p string) (string, error) {
+	a, err := filepath.Abs(p)
+	if err != nil {
+		return "", err
+	}
+	if r, err := filepath.EvalSymlinks(a); err == nil {
+		return r, nil
+	}
+	parent := filepath.Dir(a)
+	if parent == a {
+		return a, nil
+	}
+	r, err := resolve(parent)
+	if err != nil {
+		return "", err
+	}
+	return filepath.Join(r, filepath.Base(a)), nil
+}
+
+// refuseRepeatedInputs refuses a study given twice, under any spelling of
+// its path (or through a link): both would write the same outputs.
+func refuseRepeatedInputs(inputs []string) error {
+	seen := map[string]string{}
+	for _, in := range inputs {
+		r, err := resolve(in)
+		if err != nil {
+			return err
+		}
+		if first, dup := seen[r]; dup {
+			if first == in {
+				return fmt.Errorf("the study %s is given twice: give each study once", in)
+			}
+			return fmt.Errorf("the studies %s and %s are the same file or folder: give each study once", first, in)
+		}
+		seen[r] = in
+	}
+	return nil
+}
+
+// refuseSharedOutputs refuses two studies whose outputs would have the same
+// file names (the same study name, or names that differ only in case or in
+// characters a file name cannot hold), before anything is written: the
+// second would replace the first.
+func refuseSharedOutputs(outcomes []sweep.Outcome) error {
+	seen := map[string]sweep.Outcome{}
+	for _, o := range outcomes {
+		if o.Result == nil {
+			continue
+		}
+		base := report.FileName(o.Result.Name)
+		key := strings.ToLower(base)
+		if first, dup := seen[key]; dup {
+			return fmt.Errorf("the studies %s (name %q) and %s (name %q) would both write %s.xlsx: give one of them another name setting on its Study sheet", first.Name, first.Result.Name, o.Name, o.Result.Name, base)
+		}
+		seen[key] = o
+	}
+	return nil
+}
+
+// refuseInputAsOutput makes sure no output can be written over a study:
+// the output folder may be neither a study folder nor hold an .xlsx study,
+// whatever the spelling of the paths and the links on the way (each path
+// is compared as given, made absolute, and with its links followed).
 func refuseInputAsOutput(out string, inputs []string) error {
-	o, err := filepath.Abs(out)
+	outs, err := spellings(out)
 	if err != nil {
 		return err
 	}
 	for _, in := range inputs {
-		i, err := filepath.Abs(in)
+		ins, err := spellings(in)
 		if err != nil {
 			return err
 		}
-		if i == o || strings.HasPrefix(i, o+string(filepath.Separator)) && filepath.Ext(i) == ".xlsx" {
-			return fmt.Errorf("the output folder %s holds the study %s: choose another --out so nothing is written over an input", out, in)
+		xlsx := strings.EqualFold(filepath.Ext(in), ".xlsx")
+		for _, o := range outs {
+			for _, i := range ins {
+				if i == o || xlsx && within(o, i) {
+					return fmt.Errorf("the output folder %s holds the study %s: choose another --out so nothing is written over an input", out, in)
+				}
+			}
 		}
 	}
 	return nil
+}
+
+// spellings is a path made absolute, and also with its links followed.
+func spellings(p string) ([]string, error) {
+	a, err := filepath.Abs(p)
+	if err != nil {
+		return nil, err
+	}
+	r, err := resolve(p)
+	if err != nil {
+		return nil, err
+	}
+	return []string{a, r}, nil
+}
+
+// within reports whether path p lies inside the folder dir (both absolute).
+func within(dir, p string) bool {
+	rel, err := filepath.Rel(dir, p)
+	return err == nil && rel != "." && rel != ".." && !strings.HasPrefix(rel, ".."+string(filepath.Separator))
 }
