@@ -60,6 +60,13 @@ type ComboResult struct {
 	// from the prototype's beyond the study's tolerance and the strategy
 	// does not relax transverse deformation.
 	PoissonFlag bool
+	// Requirements are the facility capabilities the model needs at each
+	// grid scale, one per capability a limit names.
+	Requirements []Requirement
+	// AnyFacility is the scale of the largest model the limits that name
+	// no facility capability allow: what a facility big and fast enough
+	// would hold (NaN without a facility).
+	AnyFacility float64
 	// Measures are the study's measures at model scale.
 	Measures []MeasureValue
 	// CostCurve is the campaign cost at every grid point (nil without
@@ -177,7 +184,7 @@ func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float
 	r := &ComboResult{Strategy: c.Strategy, Case: c.Case, Technique: c.Technique,
 		Medium: name(m), Material: name(mat), Axis: math.NaN(), Recommended: math.NaN(), Largest: math.NaN(),
 		Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN(),
-		AddedMass: math.NaN(), AddedDensity: math.NaN()}
+		AddedMass: math.NaN(), AddedDensity: math.NaN(), AnyFacility: math.NaN()}
 	if f != nil {
 		r.Facility = f.Name
 	}
@@ -255,19 +262,22 @@ type compiled struct {
 	info  LimitInfo
 	lim   *feasibility.Limit
 	forms map[string]linForm
+	terms []feasibility.NameCoef // of a products-of-powers limit
 	// lower/upper range limits of a tuned property are built directly.
 }
 
 // sweepOut is what one combination at one axis value gives.
 type sweepOut struct {
-	combo      *combo
-	limits     []compiled
-	window     Window
-	margins    []float64
-	limiting   []int
-	failing    string
-	conditions []string
-	notes      []string
+	combo        *combo
+	limits       []compiled
+	window       Window
+	margins      []float64
+	limiting     []int
+	failing      string
+	conditions   []string
+	notes        []string
+	requirements []Requirement
+	anyFacility  float64
 }
 
 // limitsFor collects the limits that apply to a combination: the facility
@@ -304,6 +314,7 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 	add := func(info LimitInfo, l *feasibility.Limit, forms map[string]linForm) {
 		c := compiled{info: info, lim: l, forms: forms}
 		if k, terms, ok := l.LogLinear(); ok {
+			c.terms = terms
 			c.info.Linear = true
 			c.info.A = k
 			for _, t := range terms {
@@ -392,13 +403,21 @@ func (x *combo) sweep(us []float64) (*sweepOut, error) {
 	}
 	out := &sweepOut{combo: x, limits: limits, notes: notes}
 	u0, u1 := us[0], us[len(us)-1]
-	win := []uInterval{{u0, u1, RangeLimit, RangeLimit}}
-	for _, l := range limits {
-		if l.info.Linear {
-			win = intersect(win, halfLine(l.info.A, l.info.B, l.info.Name, u0, u1))
-		} else {
-			l := l
-			win = intersect(win, sampled(us, func(u float64) float64 { return l.margin(u) }, l.info.Name))
+	win := limitWindow(limits, us, nil)
+	// The largest model any facility could take: the window of the limits
+	// that name no capability of this facility.
+	if x.fac != nil {
+		free := limitWindow(limits, us, func(l compiled) bool {
+			for _, n := range l.lim.Names() {
+				if _, ok := x.fac.Caps[n]; ok {
+					return false
+				}
+			}
+			return true
+		})
+		out.anyFacility = math.NaN()
+		if len(free) > 0 {
+			out.anyFacility = math.Pow(10, free[0].lo)
 		}
 	}
 	// Similarity conditions of the strategy at these factors.
@@ -429,6 +448,7 @@ func (x *combo) sweep(us []float64) (*sweepOut, error) {
 		}
 	}
 	out.window = toWindow(win)
+	out.requirements = x.requirements(limits, us)
 	// Margins on the grid, for the maps.
 	out.margins = make([]float64, len(us))
 	out.limiting = make([]int, len(us))
@@ -468,6 +488,25 @@ func (x *combo) sweep(us []float64) (*sweepOut, error) {
 	return out, nil
 }
 
+// limitWindow intersects the feasible sets of the limits (those keep
+// accepts, or all) over the sweep range.
+func limitWindow(limits []compiled, us []float64, keep func(compiled) bool) []uInterval {
+	u0, u1 := us[0], us[len(us)-1]
+	win := []uInterval{{u0, u1, RangeLimit, RangeLimit}}
+	for _, l := range limits {
+		if keep != nil && !keep(l) {
+			continue
+		}
+		if l.info.Linear {
+			win = intersect(win, halfLine(l.info.A, l.info.B, l.info.Name, u0, u1))
+		} else {
+			l := l
+			win = intersect(win, sampled(us, func(u float64) float64 { return l.margin(u) }, l.info.Name))
+		}
+	}
+	return win
+}
+
 // margin evaluates a limit's margin at u = log10 kL.
 func (l compiled) margin(u float64) float64 {
 	if l.info.Linear {
@@ -495,6 +534,8 @@ func (o *sweepOut) fill(r *ComboResult) {
 	p := x.plan
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
 	r.Margins, r.Limiting = o.margins, o.limiting
+	r.Requirements = o.requirements
+	r.AnyFacility = o.anyFacility
 	for _, l := range o.limits {
 		r.Limits = append(r.Limits, l.info)
 	}
@@ -740,7 +781,7 @@ func (p *Plan) joint(st *PlanStrategy, combos []*ComboResult) []*ComboResult {
 		j := &ComboResult{Strategy: st.Name, Case: "all cases (" + strings.Join(parts, " + ") + ")", Technique: st.Technique,
 			Facility: f, Axis: math.NaN(), Window: toWindow(win), Recommended: math.NaN(), Largest: math.NaN(),
 			Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN(),
-			AddedMass: math.NaN(), AddedDensity: math.NaN()}
+			AddedMass: math.NaN(), AddedDensity: math.NaN(), AnyFacility: math.NaN()}
 		if j.Window.Empty() {
 			j.Failing = "no scale serves every case in this facility"
 		} else {

@@ -1,0 +1,132 @@
+package sweep
+
+import (
+	"math"
+)
+
+// Requirement is a facility capability read the other way: the value a
+// limit needs at each scale for the model to fit.
+type Requirement struct {
+	Capability, Unit string
+	Limit            string // the limit it comes from
+	// AtLeast is true when the capability must be at least the required
+	// value (a carriage speed, a tank depth), false when at most (a
+	// minimum carriage speed, a minimum ice thickness).
+	AtLeast bool
+	// Values is the required capability at each grid scale.
+	Values []float64
+	// Have is the facility's own value.
+	Have float64
+	// Exact is true when the requirement comes from inverting a
+	// products-of-powers limit; otherwise it was found by bisection.
+	Exact bool
+}
+
+// Shortfall returns how far the facility falls short at grid point i, as
+// a ratio: 0.12 means the capability is 12 % short (a carriage 12 % too
+// slow); 0 or less means it fits.
+func (r Requirement) Shortfall(i int) float64 {
+	v := r.Values[i]
+	if math.IsNaN(v) || v <= 0 {
+		return math.NaN()
+	}
+	if r.AtLeast {
+		return v/r.Have - 1
+	}
+	return r.Have/v - 1
+}
+
+// requirements inverts every limit that names a capability of the
+// combination's facility.
+func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
+	if x.fac == nil {
+		return nil
+	}
+	var out []Requirement
+	for _, l := range limits {
+		for _, n := range l.lim.Names() {
+			have, ok := x.fac.Caps[n]
+			if !ok {
+				continue
+			}
+			req := Requirement{Capability: n, Unit: x.fac.CapUnits[n], Limit: l.info.Name, Have: have, Values: make([]float64, len(us))}
+			if l.info.Linear {
+				e := 0.0
+				for _, t := range l.terms {
+					if t.Name == n {
+						e = t.Exp.Float64()
+					}
+				}
+				if e == 0 {
+					continue
+				}
+				req.Exact, req.AtLeast = true, e > 0
+				for i, u := range us {
+					// margin moves by e·Δlog10(capability): solve margin = 0.
+					req.Values[i] = have * math.Pow(10, -(l.info.A+l.info.B*u)/e)
+				}
+			} else {
+				if !x.invertSampled(l, n, have, us, &req) {
+					continue
+				}
+			}
+			out = append(out, req)
+		}
+	}
+	return out
+}
+
+// invertSampled finds the required capability of a limit that is not a
+// product of powers by bisection on the capability, in log, to 0.1 %.
+func (x *combo) invertSampled(l compiled, n string, have float64, us []float64, req *Requirement) bool {
+	forms := make(map[string]linForm, len(l.forms))
+	for k, v := range l.forms {
+		forms[k] = v
+	}
+	margin := func(u, capability float64) float64 {
+		forms[n] = linForm{C: math.Log(capability)}
+		ln := u * math.Ln10
+		return l.lim.Margin(func(name string) float64 { return forms[name].at(ln) })
+	}
+	u0 := us[len(us)/2]
+	up := margin(u0, have*2) > margin(u0, have/2)
+	req.AtLeast = up
+	for i, u := range us {
+		lo, hi := math.Log(have)-math.Log(1e6), math.Log(have)+math.Log(1e6)
+		okLo, okHi := margin(u, math.Exp(lo)) >= 0, margin(u, math.Exp(hi)) >= 0
+		if okLo == okHi {
+			req.Values[i] = math.NaN()
+			continue
+		}
+		for k := 0; k < 100 && hi-lo > 1e-3/4; k++ {
+			mid := (lo + hi) / 2
+			if (margin(u, math.Exp(mid)) >= 0) == okLo {
+				lo = mid
+			} else {
+				hi = mid
+			}
+		}
+		req.Values[i] = math.Exp((lo + hi) / 2)
+	}
+	return true
+}
+
+// FitEdges returns, for a requirement, the scales where the facility's
+// capability is just enough: the kL at which it stops fitting, found
+// exactly for a products-of-powers limit. It returns NaN when the
+// facility fits everywhere or nowhere on the grid.
+func (r Requirement) FitEdges(grid []float64) []float64 {
+	var out []float64
+	for i := 1; i < len(grid); i++ {
+		a, b := r.Shortfall(i-1), r.Shortfall(i)
+		if math.IsNaN(a) || math.IsNaN(b) || (a <= 0) == (b <= 0) {
+			continue
+		}
+		// log of the shortfall ratio is linear in log kL for an exact
+		// requirement; interpolate in logs.
+		la, lb := math.Log(1+a), math.Log(1+b)
+		t := la / (la - lb)
+		out = append(out, math.Exp(math.Log(grid[i-1])+t*(math.Log(grid[i])-math.Log(grid[i-1]))))
+	}
+	return out
+}
