@@ -67,6 +67,9 @@ func Memo(res *sweep.Result) string {
 			b.WriteString(".")
 		}
 		b.WriteString("\n\n")
+		if line := limitingCapability(res, rec); line != "" {
+			b.WriteString(line + "\n\n")
+		}
 
 		b.WriteString("## Scale effects and corrections\n\n")
 		if len(recS.Cases) > 0 && len(recS.Cases[0].Solution.Strategy.Relax) == 0 {
@@ -156,4 +159,27 @@ func caseSolution(sr *sweep.StrategyResult, c *sweep.ComboResult) interface{ Law
 // md escapes the characters that would break a Markdown table cell.
 func md(s string) string {
 	return strings.NewReplacer("|", "\\|", "\n", " ").Replace(s)
+}
+
+// limitingCapability says which facility capability limits the largest
+// model, and what a facility would need to hold a larger one.
+func limitingCapability(res *sweep.Result, c *sweep.ComboResult) string {
+	if c.Window.Empty() || c.Facility == "" {
+		return ""
+	}
+	edge := c.Window[0].LoLimit
+	for _, r := range c.Requirements {
+		if r.Limit != edge {
+			continue
+		}
+		s := fmt.Sprintf("**Facility.** The largest model is limited by the %s of %s (limit %q): at %s it needs %s %s, which the facility has.",
+			r.Capability, c.Facility, r.Limit, sweep.Scale(c.Window[0].Lo), Num3(r.Have), r.Unit)
+		if !math.IsNaN(c.AnyFacility) && c.AnyFacility < c.Window[0].Lo {
+			i := nearest(res.Plan.Grid, c.AnyFacility)
+			s += fmt.Sprintf(" A model as large as %s, which the other limits allow, would need %s %s (the other capabilities as they are).",
+				sweep.Scale(c.AnyFacility), Num3(r.Values[i]), r.Unit)
+		}
+		return s
+	}
+	return fmt.Sprintf("**Facility.** The largest model is limited by %q, not by a capability of %s.", edge, c.Facility)
 }

@@ -123,6 +123,12 @@ func writeWorkbook(w io.Writer, res *sweep.Result) error {
 	if err := writeLimits(f, res, bold); err != nil {
 		return err
 	}
+	if err := writeRequirements(f, res, bold); err != nil {
+		return err
+	}
+	if err := writeFit(f, res, bold); err != nil {
+		return err
+	}
 	if err := writeInputs(f, res, bold); err != nil {
 		return err
 	}
@@ -540,4 +546,128 @@ func marginStyles(f *excelize.File) ([]int, error) {
 		ids[i] = id
 	}
 	return ids, nil
+}
+
+// requirementLabel names a requirement column.
+func requirementLabel(r sweep.Requirement) string {
+	dir := "≥"
+	if !r.AtLeast {
+		dir = "≤"
+	}
+	u := r.Unit
+	if u == "" {
+		u = "1"
+	}
+	return fmt.Sprintf("%s %s needed (%s) [%s]", r.Capability, dir, r.Limit, u)
+}
+
+// writeRequirements writes the capability each combination needs at each
+// scale: scale down, capabilities across.
+func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
+	var labels []string
+	index := map[string]int{}
+	for _, sr := range res.Strategies {
+		for _, c := range sr.Combos {
+			for _, r := range c.Requirements {
+				l := requirementLabel(r)
+				if _, ok := index[l]; !ok {
+					index[l] = len(labels)
+					labels = append(labels, l)
+				}
+			}
+		}
+	}
+	header := append([]string{"strategy", "case", "candidate and facility", "scale (1:x)", "kL [-]"}, labels...)
+	widths := []float64{22, 14, 34, 12, 10}
+	for range labels {
+		widths = append(widths, 22)
+	}
+	s, err := newSheet(f, "Requirements", header, widths, bold)
+	if err != nil {
+		return err
+	}
+	grid := res.Plan.Grid
+	step := max(1, len(grid)/200)
+	for _, sr := range res.Strategies {
+		for _, c := range sr.Combos {
+			if len(c.Requirements) == 0 {
+				continue
+			}
+			for i := 0; i < len(grid); i += step {
+				row := []any{sr.Name, c.Case, Candidate(c), sweep.Scale(grid[i]), sig(grid[i])}
+				vals := make([]any, len(labels))
+				for k := range vals {
+					vals[k] = ""
+				}
+				for _, r := range c.Requirements {
+					vals[index[requirementLabel(r)]] = sig(r.Values[i])
+				}
+				if err := s.add(append(row, vals...)...); err != nil {
+					return err
+				}
+			}
+		}
+	}
+	return s.close(true)
+}
+
+// FitLines describes, for a combination, what a facility would need to
+// hold the largest model the other limits allow, and where the study's
+// facility stops fitting.
+func FitLines(res *sweep.Result, c *sweep.ComboResult) (need []string, stops []string) {
+	grid := res.Plan.Grid
+	if math.IsNaN(c.AnyFacility) {
+		return nil, nil
+	}
+	i := nearest(grid, c.AnyFacility)
+	for _, r := range c.Requirements {
+		dir := "at least"
+		if !r.AtLeast {
+			dir = "at most"
+		}
+		v := r.Values[i]
+		if math.IsNaN(v) {
+			continue
+		}
+		need = append(need, fmt.Sprintf("%s %s %s %s (has %s)", r.Capability, dir, Num3(v), r.Unit, Num3(r.Have)))
+		for _, k := range r.FitEdges(grid) {
+			stops = append(stops, fmt.Sprintf("%s (%s) at %s", r.Capability, r.Limit, sweep.Scale(k)))
+		}
+	}
+	return need, stops
+}
+
+func nearest(grid []float64, k float64) int {
+	best := 0
+	for i, g := range grid {
+		if math.Abs(math.Log(g/k)) < math.Abs(math.Log(grid[best]/k)) {
+			best = i
+		}
+	}
+	return best
+}
+
+// writeFit lists, per strategy and combination, the largest model any
+// facility could take, the capabilities a facility needs for it, and the
+// scales at which the study's facility stops fitting.
+func writeFit(f *excelize.File, res *sweep.Result, bold int) error {
+	header := []string{"strategy", "case", "candidate and facility", "largest model without facility limits (1:x)",
+		"a facility would need", "the facility stops fitting at", "the facility's own window (1:x)"}
+	s, err := newSheet(f, "Facility fit", header, []float64{22, 14, 34, 18, 70, 60, 22}, bold)
+	if err != nil {
+		return err
+	}
+	for _, sr := range res.Strategies {
+		for _, c := range sr.Combos {
+			if c.Facility == "" {
+				continue
+			}
+			need, stops := FitLines(res, c)
+			if err := s.add(sr.Name, c.Case, Candidate(c), sweep.Scale(c.AnyFacility), strings.Join(need, "; "),
+				strings.Join(stops, "; "), WindowText(c.Window)); err != nil {
+				return err
+			}
+		}
+	}
+	return s.close(true)
 }
