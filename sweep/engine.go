@@ -5,8 +5,10 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"runtime"
 	"sort"
 	"strings"
+	"sync"
 
 	"scaleplan/feasibility"
 	"scaleplan/materials"
@@ -142,20 +144,63 @@ func (p *Plan) Run(ctx context.Context) (*Result, error) {
 	for i, k := range p.Grid {
 		us[i] = math.Log10(k)
 	}
-	for _, st := range p.Strategies {
-		sr := &StrategyResult{Name: st.Name, Technique: st.Technique, Cases: st.Cases}
+	// Every combination is independent: run them across the cores, and
+	// put the results back in their fixed order so that output is
+	// deterministic.
+	type task struct {
+		c        *PlanCase
+		m, mat   *Candidate2
+		f        *Facility
+		strategy int
+	}
+	var tasks []task
+	results := make([]*StrategyResult, len(p.Strategies))
+	for si, st := range p.Strategies {
+		results[si] = &StrategyResult{Name: st.Name, Technique: st.Technique, Cases: st.Cases}
 		for _, c := range st.Cases {
 			for _, m := range candidatesOrNil(c.Media) {
 				for _, mat := range candidatesOrNil(c.Materials) {
 					for _, f := range facilitiesOrNil(c.Facilities) {
-						if err := ctx.Err(); err != nil {
-							return nil, err
-						}
-						sr.Combos = append(sr.Combos, p.runCombo(c, m, mat, f, us))
+						tasks = append(tasks, task{c, m, mat, f, si})
 					}
 				}
 			}
 		}
+	}
+	out := make([]*ComboResult, len(tasks))
+	workers := max(1, min(runtime.GOMAXPROCS(0), len(tasks)))
+	next := make(chan int)
+	var wg sync.WaitGroup
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				t := tasks[i]
+				out[i] = p.runCombo(t.c, t.m, t.mat, t.f, us)
+			}
+		}()
+	}
+	var err error
+feed:
+	for i := range tasks {
+		select {
+		case <-ctx.Done():
+			err = ctx.Err()
+			break feed
+		case next <- i:
+		}
+	}
+	close(next)
+	wg.Wait()
+	if err != nil {
+		return nil, err
+	}
+	for i, t := range tasks {
+		results[t.strategy].Combos = append(results[t.strategy].Combos, out[i])
+	}
+	for si, st := range p.Strategies {
+		sr := results[si]
 		if len(st.Cases) > 1 {
 			sr.Joint = p.joint(st, sr.Combos)
 		}
@@ -217,6 +262,7 @@ func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float
 	if len(axes) > 1 {
 		r.Axis = axes[bestI]
 	}
+	best.requirements = best.combo.requirements(best.limits, us)
 	best.fill(r)
 	return r
 }
@@ -448,26 +494,20 @@ func (x *combo) sweep(us []float64) (*sweepOut, error) {
 		}
 	}
 	out.window = toWindow(win)
-	out.requirements = x.requirements(limits, us)
-	// Margins on the grid, for the maps.
+	// Margins on the grid, for the maps: one pass per limit over the grid,
+	// a linear form for products of powers, so the inner loop is a
+	// multiply-add with no allocation.
 	out.margins = make([]float64, len(us))
 	out.limiting = make([]int, len(us))
+	marginGrid(limits, us, out.margins, out.limiting)
 	for i, u := range us {
-		m, arg := math.Inf(1), -2
-		for j, l := range limits {
-			v := l.margin(u)
-			if v < m {
-				m, arg = v, j
-			}
-		}
 		if condFails != "" && math.IsNaN(condU) {
-			m, arg = math.Inf(-1), -1
+			out.margins[i], out.limiting[i] = math.Inf(-1), -1
 		} else if !math.IsNaN(condU) {
-			if v := -math.Abs(u - condU); v < m {
-				m, arg = v, -1
+			if v := -math.Abs(u - condU); v < out.margins[i] {
+				out.margins[i], out.limiting[i] = v, -1
 			}
 		}
-		out.margins[i], out.limiting[i] = m, arg
 	}
 	if out.window.Empty() {
 		out.failing = condFails
@@ -486,6 +526,31 @@ func (x *combo) sweep(us []float64) (*sweepOut, error) {
 		}
 	}
 	return out, nil
+}
+
+// marginGrid sets m[i] to the smallest margin of the limits at us[i] and
+// arg[i] to the index of the limit that gives it (-2 when there is none).
+func marginGrid(limits []compiled, us, m []float64, arg []int) {
+	for i := range m {
+		m[i], arg[i] = math.Inf(1), -2
+	}
+	for j := range limits {
+		l := &limits[j]
+		if l.info.Linear {
+			a, b := l.info.A, l.info.B
+			for i, u := range us {
+				if v := a + b*u; v < m[i] {
+					m[i], arg[i] = v, j
+				}
+			}
+			continue
+		}
+		for i, u := range us {
+			if v := l.margin(u); v < m[i] {
+				m[i], arg[i] = v, j
+			}
+		}
+	}
 }
 
 // limitWindow intersects the feasible sets of the limits (those keep
