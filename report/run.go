@@ -63,7 +63,7 @@ func Money(x float64, currency string) string {
 	if math.IsNaN(x) {
 		return "-"
 	}
-	return fmt.Sprintf("%.0f %s", x, currency)
+	return fmt.Sprintf("%.0f %s", math.Round(x), currency)
 }
 
 // WriteRunText writes the short terminal table of a study.

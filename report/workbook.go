@@ -1,6 +1,8 @@
 package report
 
 import (
+	"archive/zip"
+	"bytes"
 	"fmt"
 	"io"
 	"math"
@@ -136,7 +138,39 @@ func writeWorkbook(w io.Writer, res *sweep.Result) error {
 		return err
 	}
 	f.SetActiveSheet(0)
-	return f.Write(w)
+	var buf bytes.Buffer
+	if err := f.Write(&buf); err != nil {
+		return err
+	}
+	return sortedZip(w, buf.Bytes())
+}
+
+// sortedZip copies a zip archive with its entries in name order. The
+// spreadsheet library writes streamed sheets in map order; sorting makes
+// the same result give a byte-identical file.
+func sortedZip(w io.Writer, b []byte) error {
+	zr, err := zip.NewReader(bytes.NewReader(b), int64(len(b)))
+	if err != nil {
+		return err
+	}
+	files := append([]*zip.File(nil), zr.File...)
+	sort.SliceStable(files, func(i, j int) bool { return zipOrder(files[i].Name) < zipOrder(files[j].Name) })
+	zw := zip.NewWriter(w)
+	for _, f := range files {
+		if err := zw.Copy(f); err != nil {
+			return err
+		}
+	}
+	return zw.Close()
+}
+
+// zipOrder keeps the content-types part first, as spreadsheet programs
+// expect, and sorts the rest by name.
+func zipOrder(name string) string {
+	if name == "[Content_Types].xml" {
+		return ""
+	}
+	return name
 }
 
 func writeSummary(f *excelize.File, res *sweep.Result, bold, title int) error {

@@ -239,13 +239,14 @@ func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float
 	}
 	bestI := -1
 	var best *sweepOut
+	cache := sampleCache{}
 	for i, a := range axes {
 		x, err := p.newCombo(c, m, mat, f, a)
 		if err != nil {
 			r.Err = err.Error()
 			return r
 		}
-		out, err := x.sweep(us)
+		out, err := x.sweep(us, cache)
 		if err != nil {
 			r.Err = err.Error()
 			return r
@@ -309,6 +310,10 @@ type compiled struct {
 	lim   *feasibility.Limit
 	forms map[string]linForm
 	terms []feasibility.NameCoef // of a products-of-powers limit
+	// vals and set are, for a limit that is not a product of powers, its
+	// margin at every grid point and its feasible set.
+	vals []float64
+	set  []uInterval
 	// lower/upper range limits of a tuned property are built directly.
 }
 
@@ -442,11 +447,12 @@ func formatSI(v float64, unit string) string {
 }
 
 // sweep evaluates every limit over the grid and finds the window.
-func (x *combo) sweep(us []float64) (*sweepOut, error) {
+func (x *combo) sweep(us []float64, cache sampleCache) (*sweepOut, error) {
 	limits, notes, err := x.limitsFor()
 	if err != nil {
 		return nil, err
 	}
+	sample(limits, us, cache)
 	out := &sweepOut{combo: x, limits: limits, notes: notes}
 	u0, u1 := us[0], us[len(us)-1]
 	win := limitWindow(limits, us, nil)
@@ -546,7 +552,13 @@ func marginGrid(limits []compiled, us, m []float64, arg []int) {
 			continue
 		}
 		for i, u := range us {
-			if v := l.margin(u); v < m[i] {
+			v := 0.0
+			if l.vals != nil {
+				v = l.vals[i]
+			} else {
+				v = l.margin(u)
+			}
+			if v < m[i] {
 				m[i], arg[i] = v, j
 			}
 		}
@@ -562,14 +574,60 @@ func limitWindow(limits []compiled, us []float64, keep func(compiled) bool) []uI
 		if keep != nil && !keep(l) {
 			continue
 		}
-		if l.info.Linear {
+		switch {
+		case l.info.Linear:
 			win = intersect(win, halfLine(l.info.A, l.info.B, l.info.Name, u0, u1))
-		} else {
+		case l.set != nil || l.vals != nil:
+			win = intersect(win, l.set)
+		default:
 			l := l
 			win = intersect(win, sampled(us, func(u float64) float64 { return l.margin(u) }, l.info.Name))
 		}
 	}
 	return win
+}
+
+// sampleCache keeps, across the second axis, the grid margins of limits
+// that are not products of powers: when a limit's names resolve to the same
+// forms at the next axis value, nothing is evaluated again.
+type sampleCache map[string]*compiled
+
+func sameForms(a, b map[string]linForm) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for k, v := range a {
+		if w, ok := b[k]; !ok || w != v {
+			return false
+		}
+	}
+	return true
+}
+
+// sample fills vals and set of every limit that is not a product of
+// powers, from the cache where it can.
+func sample(limits []compiled, us []float64, cache sampleCache) {
+	for j := range limits {
+		l := &limits[j]
+		if l.info.Linear {
+			continue
+		}
+		if c, ok := cache[l.info.Name]; ok && sameForms(c.forms, l.forms) {
+			l.vals, l.set = c.vals, c.set
+			continue
+		}
+		lc := *l
+		margin := func(u float64) float64 { return lc.margin(u) }
+		l.vals = make([]float64, len(us))
+		for i, u := range us {
+			l.vals[i] = margin(u)
+		}
+		l.set = sampledFrom(us, l.vals, margin, l.info.Name)
+		if l.set == nil {
+			l.set = []uInterval{}
+		}
+		cache[l.info.Name] = l
+	}
 }
 
 // margin evaluates a limit's margin at u = log10 kL.

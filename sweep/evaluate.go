@@ -176,7 +176,7 @@ func (x *combo) form(name string) (linForm, error) {
 	if c, ok := constants[name]; ok {
 		return linForm{C: math.Log(c.value)}, nil
 	}
-	return linForm{}, unknownName(name, p.names(x.fac))
+	return linForm{}, unknownName(name, func() []string { return p.names(x.fac) })
 }
 
 func (p *Plan) isCapability(f *Facility, name string) bool {

@@ -742,22 +742,27 @@ func (p *Plan) dimResolver(f *Facility) func(string) (feasibility.Dimension, err
 		if c, ok := constants[name]; ok {
 			return c.dim, nil
 		}
-		return feasibility.Dimension{}, unknownName(name, p.names(f))
+		return feasibility.Dimension{}, unknownName(name, func() []string { return p.names(f) })
 	}
 }
 
-type unknownNameError struct{ name, hint string }
-
-func (e unknownNameError) Error() string {
-	return "unknown name " + strconv.Quote(e.name) + e.hint + ": use a prototype item, a facility capability, a property (density, kinematic_viscosity, ...) or g_n"
+type unknownNameError struct {
+	name  string
+	known func() []string
 }
 
-func unknownName(name string, known []string) error {
-	hint := feasibility.Suggest(name, known)
+func (e unknownNameError) Error() string {
+	hint := feasibility.Suggest(e.name, e.known())
 	if strings.HasPrefix(hint, " (known") {
 		hint = ""
 	}
-	return unknownNameError{name, hint}
+	return "unknown name " + strconv.Quote(e.name) + hint + ": use a prototype item, a facility capability, a property (density, kinematic_viscosity, ...) or g_n"
+}
+
+// unknownName reports a name no measure may use; the suggestion is worked
+// out only when the message is printed.
+func unknownName(name string, known func() []string) error {
+	return unknownNameError{name, known}
 }
 
 func (p *Plan) prepareCosts(ps *Problems) {

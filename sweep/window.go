@@ -96,13 +96,22 @@ var bisectTol = math.Log10(1.001) / 4
 // sampled finds where margin(u) ≥ 0 from its values on the grid us and
 // refines every sign change by bisection.
 func sampled(us []float64, margin func(u float64) float64, name string) []uInterval {
+	vals := make([]float64, len(us))
+	for i, u := range us {
+		vals[i] = margin(u)
+	}
+	return sampledFrom(us, vals, margin, name)
+}
+
+// sampledFrom is sampled with the margins on the grid already known.
+func sampledFrom(us, vals []float64, margin func(u float64) float64, name string) []uInterval {
 	var out []uInterval
 	in := false
 	var start float64
 	var startL string
 	prevU, prevM := 0.0, 0.0
 	for i, u := range us {
-		m := margin(u)
+		m := vals[i]
 		ok := m >= 0
 		if i == 0 {
 			if ok {
