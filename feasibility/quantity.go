@@ -109,3 +109,13 @@ func LookupQuantity(name string) (Quantity, error) {
 	}
 	return Quantity{}, fmt.Errorf("unknown quantity %q%s", name, Suggest(name, QuantityNames()))
 }
+
+// QuantityNamed returns the quantity of that name without building an
+// error: for hot paths that only ask whether a name is a quantity.
+func QuantityNamed(name string) (Quantity, bool) {
+	i, ok := quantityIndex[name]
+	if !ok {
+		return Quantity{}, false
+	}
+	return quantities[i], true
+}

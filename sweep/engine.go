@@ -239,14 +239,16 @@ func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float
 	}
 	bestI := -1
 	var best *sweepOut
+	var bestLimiting []int
 	cache := sampleCache{}
+	scratch := make([]int, len(us))
 	for i, a := range axes {
 		x, err := p.newCombo(c, m, mat, f, a)
 		if err != nil {
 			r.Err = err.Error()
 			return r
 		}
-		out, err := x.sweep(us, cache)
+		out, err := x.sweep(us, cache, scratch)
 		if err != nil {
 			r.Err = err.Error()
 			return r
@@ -258,8 +260,13 @@ func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float
 		if best == nil || better(out.window, best.window) {
 			best, bestI = out, i
 			best.combo = x
+			if bestLimiting == nil {
+				bestLimiting = make([]int, len(us))
+			}
+			copy(bestLimiting, scratch)
 		}
 	}
+	best.limiting = bestLimiting
 	if len(axes) > 1 {
 		r.Axis = axes[bestI]
 	}
@@ -432,7 +439,7 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 }
 
 func quantityUnit(q string) string {
-	if qq, err := feasibility.LookupQuantity(q); err == nil {
+	if qq, ok := feasibility.QuantityNamed(q); ok {
 		return qq.SI
 	}
 	return ""
@@ -447,7 +454,7 @@ func formatSI(v float64, unit string) string {
 }
 
 // sweep evaluates every limit over the grid and finds the window.
-func (x *combo) sweep(us []float64, cache sampleCache) (*sweepOut, error) {
+func (x *combo) sweep(us []float64, cache sampleCache, limiting []int) (*sweepOut, error) {
 	limits, notes, err := x.limitsFor()
 	if err != nil {
 		return nil, err
@@ -504,7 +511,7 @@ func (x *combo) sweep(us []float64, cache sampleCache) (*sweepOut, error) {
 	// a linear form for products of powers, so the inner loop is a
 	// multiply-add with no allocation.
 	out.margins = make([]float64, len(us))
-	out.limiting = make([]int, len(us))
+	out.limiting = limiting
 	marginGrid(limits, us, out.margins, out.limiting)
 	for i, u := range us {
 		if condFails != "" && math.IsNaN(condU) {

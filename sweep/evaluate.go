@@ -157,7 +157,7 @@ func (x *combo) form(name string) (linForm, error) {
 	if v, ok := x.caps[name]; ok {
 		return linForm{C: math.Log(v)}, nil
 	}
-	if q, err := feasibility.LookupQuantity(name); err == nil && q.Kind == feasibility.Property {
+	if q, ok := feasibility.QuantityNamed(name); ok && q.Kind == feasibility.Property {
 		law, _ := x.cas.Solution.Law(name)
 		if law.Status == feasibility.Determined || law.Status == feasibility.Free {
 			if proto, ok := p.Proto[name]; ok {

@@ -340,7 +340,7 @@ func (p *Plan) prepareProto(ps *Problems) {
 	for _, n := range p.ItemOrder {
 		it := p.Items[n]
 		if it.ScalesAs != "" && it.ScalesAs == n {
-			if q, _ := feasibility.LookupQuantity(n); q.Kind == feasibility.Property {
+			if q, _ := feasibility.QuantityNamed(n); q.Kind == feasibility.Property {
 				p.Proto[n] = it.Value
 				p.ProtoSrc[n] = "Prototype sheet"
 			}
@@ -736,7 +736,7 @@ func (p *Plan) dimResolver(f *Facility) func(string) (feasibility.Dimension, err
 				return cp.Dim, nil
 			}
 		}
-		if q, err := feasibility.LookupQuantity(name); err == nil && q.Kind == feasibility.Property {
+		if q, ok := feasibility.QuantityNamed(name); ok && q.Kind == feasibility.Property {
 			return q.Dim, nil
 		}
 		if c, ok := constants[name]; ok {

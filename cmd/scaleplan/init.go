@@ -22,6 +22,7 @@ func initCommand() *cli.Command {
 		Flags: []cli.Flag{
 			&cli.StringFlag{Name: "scenario", Usage: "the scenario to start from (see --list)"},
 			&cli.BoolFlag{Name: "list", Usage: "name the built-in scenarios"},
+			&cli.StringFlag{Name: "synthetic", Usage: "write a large invented study instead, POINTSxAXISxCANDIDATESxSTRATEGIES (e.g. 2000x100x40x4), for performance figures"},
 		},
 		Action: func(c *cli.Context) error {
 			list, err := sweep.Scenarios()
@@ -45,9 +46,18 @@ func initCommand() *cli.Command {
 			if name == "" {
 				name = list[0].Name
 			}
-			s, err := sweep.LoadScenario(name)
-			if err != nil {
-				return err
+			var s *sweep.Study
+			if spec := c.String("synthetic"); spec != "" {
+				var n [4]int
+				if k, err := fmt.Sscanf(spec, "%dx%dx%dx%d", &n[0], &n[1], &n[2], &n[3]); err != nil || k != 4 || n[0] < 2 || n[1] < 0 || n[2] < 1 || n[3] < 1 {
+					return usagef("--synthetic wants POINTSxAXISxCANDIDATESxSTRATEGIES, e.g. 2000x100x40x4 (axis 0 for none), got %q", spec)
+				}
+				s, name = sweep.Synthetic(n[0], n[1], n[2], n[3]), "synthetic "+spec
+			} else {
+				s, err = sweep.LoadScenario(name)
+				if err != nil {
+					return err
+				}
 			}
 			if strings.HasSuffix(strings.ToLower(path), ".xlsx") {
 				lists, err := templateLists()

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"runtime/debug"
 	"strings"
 
 	"github.com/urfave/cli/v2"
@@ -26,6 +27,12 @@ func (e usageError) Error() string { return e.msg }
 func usagef(format string, args ...any) error { return usageError{fmt.Sprintf(format, args...)} }
 
 func main() {
+	// Keep large batches within a bounded memory: a soft limit makes the
+	// garbage collector work harder rather than let the heap double. The
+	// standard GOMEMLIMIT variable overrides it.
+	if os.Getenv("GOMEMLIMIT") == "" {
+		debug.SetMemoryLimit(768 << 20)
+	}
 	os.Exit(run(os.Args, os.Stdout, os.Stderr))
 }
 
