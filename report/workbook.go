@@ -31,8 +31,10 @@ type sheetWriter struct {
 }
 
 func newSheet(f *excelize.File, name string, header []string, widths []float64, bold int) (*sheetWriter, error) {
-	if _, err := f.NewSheet(name); err != nil {
-		return nil, err
+	if i, _ := f.GetSheetIndex(name); i < 0 {
+		if _, err := f.NewSheet(name); err != nil {
+			return nil, err
+		}
 	}
 	sw, err := f.NewStreamWriter(name)
 	if err != nil {
@@ -73,16 +75,30 @@ func (s *sheetWriter) add(cells ...any) error {
 }
 
 func (s *sheetWriter) close(filter bool) error {
-	if err := s.sw.Flush(); err != nil {
-		return err
-	}
 	if filter && s.row > 1 && s.cols > 0 {
+		// A table gives the header row its filter buttons; it is part of
+		// the streamed sheet, so nothing is read back and rewritten.
 		last, _ := excelize.CoordinatesToCellName(s.cols, s.row)
-		if err := s.f.AutoFilter(s.name, "A1:"+last, nil); err != nil {
+		off := false
+		if err := s.sw.AddTable(&excelize.Table{Range: "A1:" + last, Name: tableName(s.name),
+			StyleName: "TableStyleLight1", ShowRowStripes: &off}); err != nil {
 			return err
 		}
 	}
-	return nil
+	return s.sw.Flush()
+}
+
+// tableName turns a sheet name into a valid, unique table name.
+func tableName(sheet string) string {
+	b := []rune("tbl_")
+	for _, r := range sheet {
+		if r == '_' || r >= 'a' && r <= 'z' || r >= 'A' && r <= 'Z' || r >= '0' && r <= '9' {
+			b = append(b, r)
+		} else {
+			b = append(b, '_')
+		}
+	}
+	return string(b)
 }
 
 // WriteWorkbook writes the study workbook: a summary with the cautions
@@ -104,6 +120,11 @@ func writeWorkbook(w io.Writer, res *sweep.Result) error {
 		return err
 	}
 	title, _ := f.NewStyle(&excelize.Style{Font: &excelize.Font{Bold: true, Size: 14}})
+	// The new file's first sheet becomes the summary, so no sheet has to
+	// be deleted afterwards (which would re-read every streamed sheet).
+	if err := f.SetSheetName("Sheet1", "Summary"); err != nil {
+		return err
+	}
 	if err := writeSummary(f, res, bold, title); err != nil {
 		return err
 	}
@@ -134,10 +155,6 @@ func writeWorkbook(w io.Writer, res *sweep.Result) error {
 	if err := writeInputs(f, res, bold); err != nil {
 		return err
 	}
-	if err := f.DeleteSheet("Sheet1"); err != nil {
-		return err
-	}
-	f.SetActiveSheet(0)
 	var buf bytes.Buffer
 	if err := f.Write(&buf); err != nil {
 		return err

@@ -177,7 +177,7 @@ func (p *Plan) Run(ctx context.Context) (*Result, error) {
 			defer wg.Done()
 			for i := range next {
 				t := tasks[i]
-				out[i] = p.runCombo(t.c, t.m, t.mat, t.f, us)
+				out[i] = p.runCombo(ctx, t.c, t.m, t.mat, t.f, us)
 			}
 		}()
 	}
@@ -193,6 +193,9 @@ feed:
 	}
 	close(next)
 	wg.Wait()
+	if err == nil {
+		err = ctx.Err()
+	}
 	if err != nil {
 		return nil, err
 	}
@@ -225,7 +228,7 @@ func name(c *Candidate2) string {
 }
 
 // runCombo sweeps one combination over the grid (and the second axis).
-func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float64) *ComboResult {
+func (p *Plan) runCombo(ctx context.Context, c *PlanCase, m, mat *Candidate2, f *Facility, us []float64) *ComboResult {
 	r := &ComboResult{Strategy: c.Strategy, Case: c.Case, Technique: c.Technique,
 		Medium: name(m), Material: name(mat), Axis: math.NaN(), Recommended: math.NaN(), Largest: math.NaN(),
 		Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN(),
@@ -243,6 +246,10 @@ func (p *Plan) runCombo(c *PlanCase, m, mat *Candidate2, f *Facility, us []float
 	cache := sampleCache{}
 	scratch := make([]int, len(us))
 	for i, a := range axes {
+		if err := ctx.Err(); err != nil {
+			r.Err = err.Error()
+			return r
+		}
 		x, err := p.newCombo(c, m, mat, f, a)
 		if err != nil {
 			r.Err = err.Error()
