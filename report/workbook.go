@@ -4,8 +4,11 @@ import (
 	"archive/zip"
 	"bytes"
 	"fmt"
+	"image/png"
 	"io"
 	"math"
+	"os"
+	"path/filepath"
 	"sort"
 	"strings"
 
@@ -104,11 +107,13 @@ func tableName(sheet string) string {
 // WriteWorkbook writes the study workbook: a summary with the cautions
 // and the best option of each strategy, the windows of every combination,
 // and the scale laws with their prediction rules.
-func WriteWorkbook(path string, res *sweep.Result) error {
-	return WriteFileAtomic(path, func(w io.Writer) error { return writeWorkbook(w, res) })
+//
+// Feasibility maps given as PNG files are embedded in a Maps sheet.
+func WriteWorkbook(path string, res *sweep.Result, maps ...string) error {
+	return WriteFileAtomic(path, func(w io.Writer) error { return writeWorkbook(w, res, maps...) })
 }
 
-func writeWorkbook(w io.Writer, res *sweep.Result) error {
+func writeWorkbook(w io.Writer, res *sweep.Result, maps ...string) error {
 	f := excelize.NewFile()
 	defer f.Close()
 	if err := f.SetDocProps(&excelize.DocProperties{Creator: "scaleplan", LastModifiedBy: "scaleplan",
@@ -150,6 +155,9 @@ func writeWorkbook(w io.Writer, res *sweep.Result) error {
 		return err
 	}
 	if err := writeFit(f, res, bold); err != nil {
+		return err
+	}
+	if err := writeMaps(f, maps, title); err != nil {
 		return err
 	}
 	if err := writeInputs(f, res, bold); err != nil {
@@ -721,4 +729,50 @@ func writeFit(f *excelize.File, res *sweep.Result, bold int) error {
 		}
 	}
 	return s.close(true)
+}
+
+// writeMaps embeds the PNG feasibility maps, one below the other.
+func writeMaps(f *excelize.File, maps []string, title int) error {
+	var pngs []string
+	for _, m := range maps {
+		if strings.HasSuffix(strings.ToLower(m), ".png") {
+			pngs = append(pngs, m)
+		}
+	}
+	if len(pngs) == 0 {
+		return nil
+	}
+	const sheet = "Maps"
+	if _, err := f.NewSheet(sheet); err != nil {
+		return err
+	}
+	if err := f.SetCellValue(sheet, "A1", "Feasibility maps (scale 1:x, k = prototype/model; colour: margin in decades, blue feasible, orange infeasible)"); err != nil {
+		return err
+	}
+	if err := f.SetCellStyle(sheet, "A1", "A1", title); err != nil {
+		return err
+	}
+	row := 3
+	for _, path := range pngs {
+		b, err := os.ReadFile(path)
+		if err != nil {
+			return err
+		}
+		cfg, err := png.DecodeConfig(bytes.NewReader(b))
+		if err != nil {
+			return fmt.Errorf("map %s: %v", path, err)
+		}
+		cell, _ := excelize.CoordinatesToCellName(1, row)
+		if err := f.SetCellValue(sheet, cell, filepath.Base(path)); err != nil {
+			return err
+		}
+		cell, _ = excelize.CoordinatesToCellName(1, row+1)
+		scale := 0.6
+		if err := f.AddPictureFromBytes(sheet, cell, &excelize.Picture{Extension: ".png", File: b,
+			Format: &excelize.GraphicOptions{ScaleX: scale, ScaleY: scale, AltText: filepath.Base(path)}}); err != nil {
+			return err
+		}
+		row += 3 + int(float64(cfg.Height)*scale/20)
+	}
+	return nil
 }

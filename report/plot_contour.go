@@ -1,0 +1,455 @@
+package report
+
+import (
+	"fmt"
+	"image"
+	"image/color"
+	"math"
+	"sort"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"scaleplan/feasibility"
+	"scaleplan/sweep"
+)
+
+// ContourMap is the data behind the contour map of a two-axis sweep: the
+// margin of one combination over scale and the second axis.
+type ContourMap struct {
+	Strategy string
+	Label    string
+	Combo    *sweep.ComboResult
+	// X holds kL (the grid, thinned to MaxPlotPoints) and Y the second
+	// axis values in SI (thinned likewise).
+	X, Y []float64
+	// Z[j][i] is the margin (decades) at Y[j], X[i].
+	Z [][]float64
+	// Levels are the contour levels drawn: the palette edges within the
+	// range of Z, and always 0 (drawn bold).
+	Levels []float64
+	// Axis names the second axis and Unit gives its SI unit ("" when
+	// dimensionless); YLog is set for a log-spaced axis.
+	Axis, Unit string
+	YLog       bool
+}
+
+// ContourData returns the contour map of a strategy, or nil when it has no
+// two-axis data. One combination is mapped per strategy: the recommended
+// one when it has axis data, else the one whose margin peaks highest.
+func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
+	p := res.Plan
+	has := func(c *sweep.ComboResult) bool {
+		if c == nil || len(c.AxisMargins) < 2 || len(c.AxisMargins) != len(p.AxisValues) {
+			return false
+		}
+		for _, row := range c.AxisMargins {
+			if len(row) != len(p.Grid) {
+				return false
+			}
+		}
+		return true
+	}
+	var pickC *sweep.ComboResult
+	if has(sr.Best) {
+		pickC = sr.Best
+	} else {
+		bestPeak := math.Inf(-1)
+		for _, c := range sr.Combos {
+			if !has(c) {
+				continue
+			}
+			pk := math.Inf(-1)
+			for _, row := range c.AxisMargins {
+				for _, v := range row {
+					if v > pk {
+						pk = v
+					}
+				}
+			}
+			if pickC == nil || pk > bestPeak {
+				pickC, bestPeak = c, pk
+			}
+		}
+	}
+	if pickC == nil {
+		return nil
+	}
+	xi := sampleIndices(len(p.Grid), MaxPlotPoints)
+	yi := sampleIndices(len(p.AxisValues), MaxPlotPoints)
+	cm := &ContourMap{Strategy: sr.Name, Label: comboLabel(pickC), Combo: pickC,
+		X: pick(p.Grid, xi), Y: pick(p.AxisValues, yi), Axis: p.Settings.Axis, Unit: axisUnit(p),
+		YLog: !p.Settings.AxisLinear}
+	for _, v := range cm.Y {
+		cm.YLog = cm.YLog && v > 0
+	}
+	// Thin the rows like the columns: each kept row takes the largest
+	// margin of the rows it stands for.
+	cols := make([][]float64, len(pickC.AxisMargins))
+	for j, row := range pickC.AxisMargins {
+		cols[j] = bucketMax(row, xi)
+	}
+	cm.Z = make([][]float64, len(yi))
+	for j := range cm.Z {
+		cm.Z[j] = make([]float64, len(xi))
+	}
+	col := make([]float64, len(cols))
+	for i := range xi {
+		for j := range cols {
+			col[j] = cols[j][i]
+		}
+		for j, v := range bucketMax(col, yi) {
+			cm.Z[j][i] = v
+		}
+	}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, row := range cm.Z {
+		for _, v := range row {
+			v = clampMargin(v)
+			if !math.IsNaN(v) {
+				lo, hi = math.Min(lo, v), math.Max(hi, v)
+			}
+		}
+	}
+	for _, e := range MarginEdges {
+		if e == 0 || (e > lo && e < hi) {
+			cm.Levels = append(cm.Levels, e)
+		}
+	}
+	return cm
+}
+
+// axisUnit is the SI unit of the second axis.
+func axisUnit(p *sweep.Plan) string {
+	ax := p.Settings.Axis
+	unit := ""
+	if ax == "salinity" {
+		unit = "kg/kg"
+	} else if q, err := feasibility.LookupQuantity(ax); err == nil {
+		unit = q.SI
+	} else if p.Catalog != nil {
+		for _, f := range p.Facilities {
+			if cp, ok := p.Catalog.Capability(f.Type, ax); ok {
+				unit = cp.Unit
+				break
+			}
+		}
+	}
+	if unit == "" && !p.Settings.AxisUnit.Dim.IsDimensionless() {
+		unit = p.Settings.AxisUnit.Dim.String()
+	}
+	if unit == "1" {
+		unit = ""
+	}
+	return unit
+}
+
+// clampMargin bounds a margin for contouring: ±Inf (a condition that
+// cannot hold) becomes ±10 decades, beyond every level.
+func clampMargin(v float64) float64 {
+	return math.Max(-10, math.Min(10, v))
+}
+
+const (
+	contourHeight = 6 * vg.Inch
+	contourBarW   = 1.15 * vg.Inch
+)
+
+func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
+	title := fmt.Sprintf("%s: %s, margin over scale and %s\n%s; bold line: margin 0, the edge of the feasible region; dot: recommended point",
+		res.Name, cm.Strategy, cm.Axis, clip(cm.Label, 80))
+	p := newPlot(title, cm.X[0], cm.X[len(cm.X)-1])
+	p.Y.Label.Text = cm.Axis
+	if cm.Unit != "" {
+		p.Y.Label.Text += " [" + cm.Unit + "]"
+	}
+	ylo, yhi := cm.Y[0], cm.Y[len(cm.Y)-1]
+	if !(yhi > ylo) {
+		ylo, yhi = ylo-1, yhi+1
+	}
+	p.Y.Min, p.Y.Max = ylo, yhi
+	if cm.YLog {
+		p.Y.Scale = plot.LogScale{}
+		p.Y.Tick.Marker = logTicks{format: plainNumber}
+	}
+	p.Add(&contourPlotter{cm: cm})
+	main, strip := splitRight(inset(dc), contourBarW)
+	p.Draw(main)
+	data := p.DataCanvas(main)
+	noData := false
+	for _, row := range cm.Z {
+		for _, v := range row {
+			noData = noData || math.IsNaN(v)
+		}
+	}
+	bottom := math.Max(float64(data.Min.Y), float64(data.Max.Y-3.4*vg.Inch))
+	drawMarginBar(strip, vg.Rectangle{Min: vg.Point{X: strip.Min.X, Y: vg.Length(bottom)}, Max: vg.Point{X: strip.Max.X, Y: data.Max.Y}}, noData)
+}
+
+// contourPlotter fills the margin classes (a raster, bilinear between
+// grid points) and strokes the contour lines on top.
+type contourPlotter struct{ cm *ContourMap }
+
+func (cp *contourPlotter) DataRange() (xmin, xmax, ymin, ymax float64) {
+	cm := cp.cm
+	return cm.X[0], cm.X[len(cm.X)-1], cm.Y[0], cm.Y[len(cm.Y)-1]
+}
+
+func (cp *contourPlotter) coords() (u, v []float64) {
+	cm := cp.cm
+	u = make([]float64, len(cm.X))
+	for i, x := range cm.X {
+		u[i] = math.Log10(x)
+	}
+	v = make([]float64, len(cm.Y))
+	for j, y := range cm.Y {
+		v[j] = y
+		if cm.YLog {
+			v[j] = math.Log10(y)
+		}
+	}
+	return u, v
+}
+
+func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
+	cm := cp.cm
+	u, v := cp.coords()
+	z := make([][]float64, len(cm.Z))
+	for j, row := range cm.Z {
+		z[j] = make([]float64, len(row))
+		for i, m := range row {
+			z[j][i] = clampMargin(m)
+		}
+	}
+	// The fill, at the resolution of the output (at least 2 px per point
+	// for vector formats).
+	size := c.Size()
+	dpi := 144.0
+	if d, ok := c.Canvas.(interface{ DPI() float64 }); ok {
+		dpi = math.Max(d.DPI(), dpi)
+	}
+	scale := dpi / 72
+	w := int(math.Min(2400, math.Ceil(float64(size.X)*scale)))
+	h := int(math.Min(2400, math.Ceil(float64(size.Y)*scale)))
+	if w > 0 && h > 0 {
+		img := image.NewNRGBA(image.Rect(0, 0, w, h))
+		ulo, uhi := u[0], u[len(u)-1]
+		vlo, vhi := v[0], v[len(v)-1]
+		if !cm.YLog {
+			vlo, vhi = plt.Y.Min, plt.Y.Max
+		}
+		ci, cw := cellWeights(u, ulo, uhi, w)
+		rj, rw := cellWeights(v, vlo, vhi, h)
+		for py := 0; py < h; py++ {
+			jr := h - 1 - py // image rows run top down
+			j, b := rj[jr], rw[jr]
+			for px := 0; px < w; px++ {
+				i, a := ci[px], cw[px]
+				m := bilinear(z, i, j, a, b)
+				img.SetNRGBA(px, py, MarginColor(m))
+			}
+		}
+		c.DrawImage(c.Rectangle, img)
+	}
+	trX, trY := plt.Transforms(&c)
+	toCanvas := func(line []contourPoint) []vg.Point {
+		pts := make([]vg.Point, len(line))
+		for k, q := range line {
+			y := q.v
+			if cm.YLog {
+				y = math.Pow(10, y)
+			}
+			pts[k] = vg.Point{X: trX(math.Pow(10, q.u)), Y: trY(y)}
+		}
+		return pts
+	}
+	thin := draw.LineStyle{Color: color.NRGBA{0x30, 0x30, 0x30, 0xFF}, Width: 0.6}
+	bold := draw.LineStyle{Color: color.Black, Width: 2.4}
+	for _, lvl := range cm.Levels {
+		sty := thin
+		if lvl == 0 {
+			continue
+		}
+		for _, line := range isolines(u, v, z, lvl) {
+			c.StrokeLines(sty, toCanvas(line))
+		}
+	}
+	for _, line := range isolines(u, v, z, 0) {
+		c.StrokeLines(bold, toCanvas(line))
+	}
+	if k, a := cm.Combo.Recommended, cm.Combo.Axis; !math.IsNaN(k) && !math.IsNaN(a) {
+		pt := vg.Point{X: trX(k), Y: trY(a)}
+		c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: 5, Shape: draw.CircleGlyph{}}, pt)
+		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: 3.5, Shape: draw.CircleGlyph{}}, pt)
+	}
+}
+
+// cellWeights maps n pixel centres spread over [lo, hi] onto the sample
+// coordinates s: the index of the sample at or before each pixel and the
+// weight of the next one.
+func cellWeights(s []float64, lo, hi float64, n int) ([]int, []float64) {
+	idx := make([]int, n)
+	wt := make([]float64, n)
+	for p := 0; p < n; p++ {
+		t := lo + (float64(p)+0.5)/float64(n)*(hi-lo)
+		i := sort.SearchFloat64s(s, t) - 1
+		switch {
+		case i < 0:
+			i, wt[p] = 0, 0
+		case i >= len(s)-1:
+			i, wt[p] = len(s)-2, 1
+		default:
+			wt[p] = (t - s[i]) / (s[i+1] - s[i])
+		}
+		idx[p] = i
+	}
+	return idx, wt
+}
+
+func bilinear(z [][]float64, i, j int, a, b float64) float64 {
+	z00, z10 := z[j][i], z[j][i+1]
+	z01, z11 := z[j+1][i], z[j+1][i+1]
+	return (1-b)*((1-a)*z00+a*z10) + b*((1-a)*z01+a*z11)
+}
+
+// contourPoint is a point of a contour line in (log10 kL, axis) space.
+type contourPoint struct{ u, v float64 }
+
+// isolines traces the lines where z crosses level by marching squares,
+// with linear interpolation along cell edges (the same as the bilinear
+// fill) and saddles settled by the cell's mean. Segments are joined into
+// lines in the order of the grid, so the result is deterministic.
+func isolines(u, v []float64, z [][]float64, level float64) [][]contourPoint {
+	nx, ny := len(u), len(v)
+	if nx < 2 || ny < 2 {
+		return nil
+	}
+	type seg struct{ a, b int } // edge ids
+	// Edge ids: 2·(j·nx+i) for the edge from (i,j) to (i+1,j), and
+	// 2·(j·nx+i)+1 for the edge from (i,j) to (i,j+1).
+	hEdge := func(i, j int) int { return 2 * (j*nx + i) }
+	vEdge := func(i, j int) int { return 2*(j*nx+i) + 1 }
+	point := map[int]contourPoint{}
+	cross := func(id int) contourPoint {
+		if q, ok := point[id]; ok {
+			return q
+		}
+		k := id / 2
+		i, j := k%nx, k/nx
+		var q contourPoint
+		if id%2 == 0 {
+			t := (level - z[j][i]) / (z[j][i+1] - z[j][i])
+			q = contourPoint{u[i] + t*(u[i+1]-u[i]), v[j]}
+		} else {
+			t := (level - z[j][i]) / (z[j+1][i] - z[j][i])
+			q = contourPoint{u[i], v[j] + t*(v[j+1]-v[j])}
+		}
+		point[id] = q
+		return q
+	}
+	var segs []seg
+	for j := 0; j < ny-1; j++ {
+		for i := 0; i < nx-1; i++ {
+			z00, z10, z11, z01 := z[j][i], z[j][i+1], z[j+1][i+1], z[j+1][i]
+			if math.IsNaN(z00) || math.IsNaN(z10) || math.IsNaN(z11) || math.IsNaN(z01) {
+				continue
+			}
+			in := func(x float64) int {
+				if x >= level {
+					return 1
+				}
+				return 0
+			}
+			code := in(z00) | in(z10)<<1 | in(z11)<<2 | in(z01)<<3
+			bottom, right, top, left := hEdge(i, j), vEdge(i+1, j), hEdge(i, j+1), vEdge(i, j)
+			switch code {
+			case 0, 15:
+			case 1, 14:
+				segs = append(segs, seg{left, bottom})
+			case 2, 13:
+				segs = append(segs, seg{bottom, right})
+			case 3, 12:
+				segs = append(segs, seg{left, right})
+			case 4, 11:
+				segs = append(segs, seg{right, top})
+			case 6, 9:
+				segs = append(segs, seg{bottom, top})
+			case 7, 8:
+				segs = append(segs, seg{left, top})
+			case 5, 10:
+				centre := (z00 + z10 + z11 + z01) / 4
+				// Corners 00 and 11 agree; the centre says whether they
+				// join across the cell.
+				joined := (centre >= level) == (code == 5)
+				if joined {
+					segs = append(segs, seg{left, top}, seg{bottom, right})
+				} else {
+					segs = append(segs, seg{left, bottom}, seg{right, top})
+				}
+			}
+		}
+	}
+	at := map[int][]int{}
+	for k, s := range segs {
+		at[s.a] = append(at[s.a], k)
+		at[s.b] = append(at[s.b], k)
+	}
+	used := make([]bool, len(segs))
+	next := func(edge, from int) (int, bool) {
+		for _, k := range at[edge] {
+			if k != from && !used[k] {
+				return k, true
+			}
+		}
+		return 0, false
+	}
+	var lines [][]contourPoint
+	for k := range segs {
+		if used[k] {
+			continue
+		}
+		used[k] = true
+		fwd := []int{segs[k].a, segs[k].b}
+		for cur, e := k, segs[k].b; ; {
+			n, ok := next(e, cur)
+			if !ok {
+				break
+			}
+			used[n] = true
+			if segs[n].a == e {
+				e = segs[n].b
+			} else {
+				e = segs[n].a
+			}
+			fwd = append(fwd, e)
+			cur = n
+		}
+		var back []int
+		for cur, e := k, segs[k].a; ; {
+			n, ok := next(e, cur)
+			if !ok {
+				break
+			}
+			used[n] = true
+			if segs[n].a == e {
+				e = segs[n].b
+			} else {
+				e = segs[n].a
+			}
+			back = append(back, e)
+			cur = n
+		}
+		ids := make([]int, 0, len(back)+len(fwd))
+		for b := len(back) - 1; b >= 0; b-- {
+			ids = append(ids, back[b])
+		}
+		ids = append(ids, fwd...)
+		line := make([]contourPoint, len(ids))
+		for m, id := range ids {
+			line[m] = cross(id)
+		}
+		lines = append(lines, line)
+	}
+	return lines
+}

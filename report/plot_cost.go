@@ -1,0 +1,331 @@
+package report
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+	"strconv"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"scaleplan/sweep"
+)
+
+// costCurve is the campaign cost of a combination at every grid point
+// (NaN where it cannot be evaluated), or nil without costs. The maps read
+// sweep.ComboResult.CostCurve only through this accessor, the one place
+// to change should the field move or be renamed.
+func costCurve(c *sweep.ComboResult) []float64 { return c.CostCurve }
+
+// CostSeries is the data behind the cost plot of a strategy: the campaign
+// cost across the scale range of one combination, with its window.
+type CostSeries struct {
+	Strategy string
+	Label    string
+	Combo    *sweep.ComboResult
+	// X holds kL (the grid, thinned to MaxPlotPoints by picking grid
+	// points) and Cost the cost there (NaN where unavailable).
+	X, Cost  []float64
+	Window   sweep.Window
+	Currency string
+}
+
+// CostData returns the cost plot of a strategy, or nil when no
+// combination has a cost curve. It shows the recommended combination when
+// it has costs (a joint window has none of its own), else the combination
+// with the largest feasible model among those with costs.
+func CostData(res *sweep.Result, sr *sweep.StrategyResult) *CostSeries {
+	grid := res.Plan.Grid
+	has := func(c *sweep.ComboResult) bool {
+		if c == nil {
+			return false
+		}
+		cc := costCurve(c)
+		if len(cc) != len(grid) {
+			return false
+		}
+		for _, v := range cc {
+			if !math.IsNaN(v) && !math.IsInf(v, 0) {
+				return true
+			}
+		}
+		return false
+	}
+	var pickC *sweep.ComboResult
+	if has(sr.Best) {
+		pickC = sr.Best
+	} else {
+		for _, c := range sr.Combos {
+			if !has(c) || c.Window.Empty() {
+				continue
+			}
+			if pickC == nil || c.Window.Largest() < pickC.Window.Largest() {
+				pickC = c
+			}
+		}
+	}
+	if pickC == nil {
+		return nil
+	}
+	idx := sampleIndices(len(grid), MaxPlotPoints)
+	return &CostSeries{Strategy: sr.Name, Label: comboLabel(pickC), Combo: pickC,
+		X: pick(grid, idx), Cost: pick(costCurve(pickC), idx), Window: pickC.Window,
+		Currency: res.Plan.Settings.Currency}
+}
+
+const costHeight = 5.5 * vg.Inch
+
+var (
+	costInColor  = color.NRGBA{0x0D, 0x34, 0x66, 0xFF} // darkest feasible blue
+	costOutColor = color.NRGBA{0x80, 0x80, 0x80, 0xFF}
+	windowShade  = color.NRGBA{0xC9, 0xE1, 0xF5, 0xFF} // palette class 0 … 0.1
+)
+
+func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
+	title := fmt.Sprintf("%s: %s, campaign cost against scale\n%s; shaded: feasible window, named by the limit at each edge",
+		res.Name, cs.Strategy, clip(cs.Label, 80))
+	p := newPlot(title, cs.X[0], cs.X[len(cs.X)-1])
+	cur := cs.Currency
+	p.Y.Label.Text = "campaign cost"
+	if cur != "" {
+		p.Y.Label.Text += " [" + cur + "]"
+	}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, v := range cs.Cost {
+		if !math.IsNaN(v) && !math.IsInf(v, 0) {
+			lo, hi = math.Min(lo, v), math.Max(hi, v)
+		}
+	}
+	if lo > 0 && hi/lo > 20 {
+		p.Y.Scale = plot.LogScale{}
+		p.Y.Tick.Marker = logTicks{format: moneyTick}
+		p.Y.Min, p.Y.Max = lo/1.15, hi*math.Pow(hi/lo, 0.12)
+	} else {
+		pad := (hi - lo) * 0.06
+		if pad == 0 {
+			pad = math.Max(math.Abs(hi)*0.1, 1)
+		}
+		// Headroom at the top keeps the edge labels clear of the curve.
+		p.Y.Min, p.Y.Max = lo-pad, hi+2.5*pad
+		if lo >= 0 && p.Y.Min < 0 {
+			p.Y.Min = 0
+		}
+		p.Y.Tick.Marker = moneyTicks{}
+	}
+	shade := &windowPlotter{window: cs.Window}
+	p.Add(shade)
+	var in, out []plotter.XYs
+	var cur1 plotter.XYs
+	curIn := false
+	flush := func() {
+		if len(cur1) > 0 {
+			if curIn {
+				in = append(in, cur1)
+			} else {
+				out = append(out, cur1)
+			}
+		}
+		cur1 = nil
+	}
+	for i, x := range cs.X {
+		v := cs.Cost[i]
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			flush()
+			continue
+		}
+		inside := cs.Window.Contains(x)
+		if len(cur1) > 0 && inside != curIn {
+			// Join the two parts at this point so the curve is unbroken.
+			cur1 = append(cur1, plotter.XY{X: x, Y: v})
+			flush()
+		}
+		curIn = inside
+		cur1 = append(cur1, plotter.XY{X: x, Y: v})
+	}
+	flush()
+	outStyle := draw.LineStyle{Color: costOutColor, Width: 1.2, Dashes: []vg.Length{4, 3}}
+	inStyle := draw.LineStyle{Color: costInColor, Width: 2.2}
+	var firstIn, firstOut *plotter.Line
+	for _, xy := range out {
+		l := &plotter.Line{XYs: xy, LineStyle: outStyle}
+		p.Add(l)
+		if firstOut == nil {
+			firstOut = l
+		}
+	}
+	for _, xy := range in {
+		l := &plotter.Line{XYs: xy, LineStyle: inStyle}
+		p.Add(l)
+		if firstIn == nil {
+			firstIn = l
+		}
+	}
+	marks := &costMarks{series: cs, currency: cur}
+	p.Add(marks)
+	var legend []legendEntry
+	if firstIn != nil {
+		legend = append(legend, legendEntry{"cost in the window", firstIn})
+	}
+	if firstOut != nil {
+		legend = append(legend, legendEntry{"cost outside it", firstOut})
+	}
+	legend = append(legend, legendEntry{"feasible window", shade})
+	if marks.hasRecommended() {
+		legend = append(legend, legendEntry{"recommended scale", glyphThumb{draw.PyramidGlyph{}}})
+	}
+	if marks.hasCheapest() {
+		legend = append(legend, legendEntry{"cheapest feasible scale", glyphThumb{draw.RingGlyph{}}})
+	}
+	area := inset(dc)
+	p.Draw(draw.Crop(area, 0, 0, legendRowH, 0))
+	drawLegendRow(draw.Crop(area, 0, 0, 0, legendRowH-area.Size().Y), legend)
+}
+
+type legendEntry struct {
+	text  string
+	thumb plot.Thumbnailer
+}
+
+const legendRowH = vg.Length(20)
+
+// drawLegendRow draws legend entries side by side, centred in c.
+func drawLegendRow(c draw.Canvas, entries []legendEntry) {
+	sty := textStyle(8.5, inkColor)
+	const thumbW, thumbH, gap = vg.Length(22), vg.Length(8), vg.Length(16)
+	total := vg.Length(0)
+	for i, e := range entries {
+		if i > 0 {
+			total += gap
+		}
+		total += thumbW + 4 + sty.Width(e.text)
+	}
+	x := (c.Min.X+c.Max.X)/2 - total/2
+	y := (c.Min.Y + c.Max.Y) / 2
+	for _, e := range entries {
+		tc := c
+		tc.Rectangle = vg.Rectangle{Min: vg.Point{X: x, Y: y - thumbH/2}, Max: vg.Point{X: x + thumbW, Y: y + thumbH/2}}
+		e.thumb.Thumbnail(&tc)
+		x += thumbW + 4
+		s := sty
+		s.YAlign = draw.YCenter
+		c.FillText(s, vg.Point{X: x, Y: y}, e.text)
+		x += sty.Width(e.text) + gap
+	}
+}
+
+// windowPlotter shades the window over the whole height of the plot and
+// names the limit at each edge.
+type windowPlotter struct{ window sweep.Window }
+
+func (w *windowPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
+	trX, _ := plt.Transforms(&c)
+	edge := draw.LineStyle{Color: inkColor, Width: 1.1}
+	for _, iv := range w.window {
+		a, b := trX(iv.Lo), trX(iv.Hi)
+		if b-a < 1 {
+			a, b = a-0.5, b+0.5
+		}
+		c.FillPolygon(windowShade, rectPoints(vg.Rectangle{Min: vg.Point{X: a, Y: c.Min.Y}, Max: vg.Point{X: b, Y: c.Max.Y}}))
+		c.StrokeLine2(edge, trX(iv.Lo), c.Min.Y, trX(iv.Lo), c.Max.Y)
+		c.StrokeLine2(edge, trX(iv.Hi), c.Min.Y, trX(iv.Hi), c.Max.Y)
+	}
+	lab := edgeLabeller{c: c, sty: textStyle(8, inkColor)}
+	lab.labelEdges(w.window, trX, c.Max.Y-5-lab.sty.Height("M"))
+}
+
+func (w *windowPlotter) Thumbnail(c *draw.Canvas) {
+	c.FillPolygon(windowShade, rectPoints(c.Rectangle))
+}
+
+// costMarks marks the recommended and the cheapest scale on the curve.
+type costMarks struct {
+	series   *CostSeries
+	currency string
+}
+
+func (m *costMarks) hasRecommended() bool {
+	c := m.series.Combo
+	return !math.IsNaN(c.Recommended) && !math.IsNaN(c.Cost)
+}
+
+func (m *costMarks) hasCheapest() bool {
+	c := m.series.Combo
+	return !math.IsNaN(c.Cheapest) && !math.IsNaN(c.CheapestCost) &&
+		!(m.hasRecommended() && c.Cheapest == c.Recommended)
+}
+
+func (m *costMarks) Plot(c draw.Canvas, plt *plot.Plot) {
+	trX, trY := plt.Transforms(&c)
+	co := m.series.Combo
+	sty := textStyle(8, inkColor)
+	mark := func(k, cost float64, g draw.GlyphDrawer, name string, right, above bool) {
+		pt := vg.Point{X: trX(k), Y: trY(cost)}
+		c.DrawGlyph(draw.GlyphStyle{Color: inkColor, Radius: 4.5, Shape: g}, pt)
+		txt := fmt.Sprintf("%s %s: %s", name, sweep.Scale(k), Money(cost, m.currency))
+		w, h := sty.Width(txt), sty.Height(txt)
+		at := vg.Point{X: pt.X + 7, Y: pt.Y + 6}
+		if !right {
+			at.X = pt.X - 7 - w
+		}
+		if !above {
+			at.Y = pt.Y - 8 - h
+		}
+		// A veil behind the text keeps it legible over lines and shading.
+		c.FillPolygon(color.NRGBA{0xFF, 0xFF, 0xFF, 0xD0}, rectPoints(vg.Rectangle{
+			Min: vg.Point{X: at.X - 2, Y: at.Y - 2}, Max: vg.Point{X: at.X + w + 2, Y: at.Y + h + 1}}))
+		s := sty
+		s.XAlign, s.YAlign = draw.XLeft, draw.YBottom
+		c.FillText(s, vg.Point{X: at.X, Y: at.Y + sty.FontExtents().Descent}, txt)
+	}
+	// Labels point into the plot: rightwards from the left half.
+	mid := (c.Min.X + c.Max.X) / 2
+	if m.hasRecommended() {
+		mark(co.Recommended, co.Cost, draw.PyramidGlyph{}, "recommended", trX(co.Recommended) < mid, true)
+	}
+	if m.hasCheapest() {
+		mark(co.Cheapest, co.CheapestCost, draw.RingGlyph{}, "cheapest", trX(co.Cheapest) < mid, false)
+	}
+}
+
+type glyphThumb struct{ shape draw.GlyphDrawer }
+
+func (g glyphThumb) Thumbnail(c *draw.Canvas) {
+	c.DrawGlyph(draw.GlyphStyle{Color: inkColor, Radius: 4, Shape: g.shape}, c.Center())
+}
+
+// moneyTicks are the default linear ticks labelled with grouped digits.
+type moneyTicks struct{}
+
+func (moneyTicks) Ticks(min, max float64) []plot.Tick {
+	ticks := plot.DefaultTicks{}.Ticks(min, max)
+	for i := range ticks {
+		if !ticks[i].IsMinor() {
+			ticks[i].Label = moneyTick(ticks[i].Value)
+		}
+	}
+	return ticks
+}
+
+// moneyTick prints an amount with its thousands grouped by thin spaces:
+// "120 000".
+func moneyTick(v float64) string {
+	if math.Abs(v) < 100 && v != math.Round(v) {
+		return strconv.FormatFloat(v, 'g', 3, 64)
+	}
+	s := strconv.FormatFloat(math.Abs(math.Round(v)), 'f', 0, 64)
+	var b strings.Builder
+	for i, r := range s {
+		if i > 0 && (len(s)-i)%3 == 0 {
+			b.WriteRune('\u2009')
+		}
+		b.WriteRune(r)
+	}
+	if v < 0 && s != "0" {
+		return "−" + b.String()
+	}
+	return b.String()
+}
