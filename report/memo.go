@@ -67,6 +67,17 @@ func Memo(res *sweep.Result) string {
 			b.WriteString(".")
 		}
 		b.WriteString("\n\n")
+		if r := rec.Robust; r != nil {
+			fmt.Fprintf(b, "**Uncertain inputs.** Drawing the study's uncertain inputs %d times, the scales that stay feasible with a probability of at least %.0f %% are %s (sampling error at most %.3f), against %s on nominal values.",
+				r.Samples, 100*r.Level, WindowText(r.Window), r.StdErr, WindowText(rec.Window))
+			if len(r.Sensitivity) > 0 {
+				fmt.Fprintf(b, " The input that matters most is %s: knowing it exactly would widen that window by %.2f decades of scale.", r.Sensitivity[0].Input, r.Sensitivity[0].Gain)
+			}
+			if r.Note != "" {
+				fmt.Fprintf(b, " (%s.)", r.Note)
+			}
+			b.WriteString("\n\n")
+		}
 		if line := limitingCapability(res, rec); line != "" {
 			b.WriteString(line + "\n\n")
 		}

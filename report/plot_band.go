@@ -36,6 +36,10 @@ type BandRow struct {
 	// Edges are the window's edges with the limits that set them.
 	Edges []Edge
 	Best  bool // the strategy's recommended combination
+	// Robust is the window whose scales stay feasible with the study's
+	// robust level of probability, nil without uncertain inputs; it is
+	// drawn as a dark band under the row.
+	Robust sweep.Window
 }
 
 // BandData returns the band chart of a strategy.
@@ -50,6 +54,9 @@ func BandData(res *sweep.Result, sr *sweep.StrategyResult) BandChart {
 	for _, i := range keep {
 		c := all[i]
 		row := BandRow{Label: comboLabel(c), Combo: c, Edges: WindowEdges(c.Window), Best: c == sr.Best}
+		if c.Robust != nil {
+			row.Robust = c.Robust.Window
+		}
 		if len(c.Margins) == len(grid) {
 			row.Margin = bucketMax(c.Margins, idx)
 		}
@@ -130,6 +137,12 @@ func drawBand(dc draw.Canvas, res *sweep.Result, bc BandChart) {
 		title += fmt.Sprintf(" (+%d more combinations not shown)", bc.More)
 	}
 	title += "\nblue: feasible, orange: short of a limit; ticks: window edges, each named by the limit that sets it; ▲ recommended scale"
+	for _, row := range bc.Rows {
+		if row.Combo.Robust != nil {
+			title += fmt.Sprintf("; dark band: feasible with probability ≥ %.0f %%", 100*row.Combo.Robust.Level)
+			break
+		}
+	}
 	p := newPlot(title, bc.X[0], bc.X[len(bc.X)-1])
 	n := len(bc.Rows)
 	p.Y.Min, p.Y.Max = -0.5, float64(n)-0.5
@@ -222,6 +235,10 @@ func (b *bandPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 		}
 		c.StrokeLines(draw.LineStyle{Color: faintColor, Width: 0.4}, []vg.Point{
 			{X: bounds[0], Y: y0}, {X: bounds[len(x)], Y: y0}, {X: bounds[len(x)], Y: y1}, {X: bounds[0], Y: y1}, {X: bounds[0], Y: y0}})
+		for _, iv := range row.Robust {
+			yb := trY(yc + barLo - 0.035)
+			c.StrokeLine2(draw.LineStyle{Color: inkColor, Width: 2.4}, trX(iv.Lo), yb, trX(iv.Hi), yb)
+		}
 		for _, e := range row.Edges {
 			xe := trX(e.KL)
 			c.StrokeLine2(tick, xe, trY(yc+tickLo), xe, trY(yc+tickHi))

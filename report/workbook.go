@@ -221,7 +221,8 @@ func writeSummary(f *excelize.File, res *sweep.Result, bold, title int) error {
 		excelize.Cell{StyleID: bold, Value: "window (1:x)"}, excelize.Cell{StyleID: bold, Value: "large-model edge set by"},
 		excelize.Cell{StyleID: bold, Value: "small-model edge set by"}, excelize.Cell{StyleID: bold, Value: "recommended (1:x)"},
 		excelize.Cell{StyleID: bold, Value: "model length [m]"}, excelize.Cell{StyleID: bold, Value: "cost [" + st.Currency + "]"},
-		excelize.Cell{StyleID: bold, Value: "best candidate / reason"}})
+		excelize.Cell{StyleID: bold, Value: "best candidate / reason"},
+		excelize.Cell{StyleID: bold, Value: fmt.Sprintf("robust window, P ≥ %.0f %% (1:x)", 100*st.RobustLevel)}})
 	for _, sr := range res.Strategies {
 		c := sr.Best
 		if c == nil {
@@ -230,7 +231,7 @@ func writeSummary(f *excelize.File, res *sweep.Result, bold, title int) error {
 		}
 		large, small := Edges(c.Window)
 		rows = append(rows, []any{sr.Name, sr.Technique, WindowText(c.Window), large, small, sweep.Scale(c.Recommended),
-			sig(c.ModelLength), money(c.Cost), Candidate(c)})
+			sig(c.ModelLength), money(c.Cost), Candidate(c), RobustText(c)})
 	}
 	for _, r := range rows {
 		if err := s.add(r...); err != nil {
@@ -270,7 +271,7 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 	header := []string{"strategy", "case", "technique", "medium", "material", "facility", "axis value [SI]",
 		"window (1:x)", "from kL [-]", "to kL [-]", "large-model edge set by", "small-model edge set by",
 		"recommended (1:x)", "recommended kL [-]", "model length [m]", "cost [" + res.Plan.Settings.Currency + "]",
-		"cheapest kL [-]", "required and measured at recommended scale (model values, SI unless stated)", "relaxed groups π_p/π_m", "notes"}
+		"cheapest kL [-]", "required and measured at recommended scale (model values, SI unless stated)", "relaxed groups π_p/π_m", "notes", "robust window (1:x)", "robust: input that matters most"}
 	widths := []float64{22, 16, 14, 16, 16, 18, 12, 22, 11, 11, 26, 26, 14, 12, 12, 12, 12, 40, 40, 60}
 	s, err := newSheet(f, "Windows", header, widths, bold)
 	if err != nil {
@@ -317,7 +318,7 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 			if err := s.add(c.Strategy, c.Case, c.Technique, c.Medium, c.Material, c.Facility, sig(c.Axis),
 				WindowText(c.Window), sig(lo), sig(hi), large, small, sweep.Scale(c.Recommended), sig(c.Recommended),
 				sig(c.ModelLength), money(c.Cost), sig(c.Cheapest), strings.Join(req, "; "), strings.Join(mm, "; "),
-				strings.Join(notes, "; ")); err != nil {
+				strings.Join(notes, "; "), RobustText(c), robustInput(c)); err != nil {
 				return err
 			}
 		}
@@ -775,4 +776,21 @@ func writeMaps(f *excelize.File, maps []string, title int) error {
 		row += 3 + int(float64(cfg.Height)*scale/20)
 	}
 	return nil
+}
+
+// RobustText prints a combination's robust window, or "" without
+// uncertain inputs.
+func RobustText(c *sweep.ComboResult) string {
+	if c == nil || c.Robust == nil {
+		return ""
+	}
+	return WindowText(c.Robust.Window)
+}
+
+func robustInput(c *sweep.ComboResult) string {
+	if c.Robust == nil || len(c.Robust.Sensitivity) == 0 {
+		return ""
+	}
+	g := c.Robust.Sensitivity[0]
+	return fmt.Sprintf("%s (knowing it exactly widens the window by %.2f decades)", g.Input, g.Gain)
 }

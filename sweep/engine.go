@@ -69,6 +69,9 @@ type ComboResult struct {
 	// no facility capability allow: what a facility big and fast enough
 	// would hold (NaN without a facility).
 	AnyFacility float64
+	// Robust is the probability of feasibility when the study's uncertain
+	// inputs vary (nil without an Uncertainty sheet).
+	Robust *Robust
 	// Measures are the study's measures at model scale.
 	Measures []MeasureValue
 	// CostCurve is the campaign cost at every grid point (nil without
@@ -177,7 +180,7 @@ func (p *Plan) Run(ctx context.Context) (*Result, error) {
 			defer wg.Done()
 			for i := range next {
 				t := tasks[i]
-				out[i] = p.runCombo(ctx, t.c, t.m, t.mat, t.f, us)
+				out[i] = p.runCombo(ctx, i, t.c, t.m, t.mat, t.f, us)
 			}
 		}()
 	}
@@ -228,7 +231,7 @@ func name(c *Candidate2) string {
 }
 
 // runCombo sweeps one combination over the grid (and the second axis).
-func (p *Plan) runCombo(ctx context.Context, c *PlanCase, m, mat *Candidate2, f *Facility, us []float64) *ComboResult {
+func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Candidate2, f *Facility, us []float64) *ComboResult {
 	r := &ComboResult{Strategy: c.Strategy, Case: c.Case, Technique: c.Technique,
 		Medium: name(m), Material: name(mat), Axis: math.NaN(), Recommended: math.NaN(), Largest: math.NaN(),
 		Cheapest: math.NaN(), CheapestCost: math.NaN(), Cost: math.NaN(), ModelLength: math.NaN(),
@@ -279,6 +282,9 @@ func (p *Plan) runCombo(ctx context.Context, c *PlanCase, m, mat *Candidate2, f 
 	}
 	best.requirements = best.combo.requirements(best.limits, us)
 	best.fill(r)
+	if p.Settings.Samples > 0 && len(p.Uncertain) > 0 {
+		r.Robust = best.robust(us, p.Settings.Seed, index)
+	}
 	return r
 }
 

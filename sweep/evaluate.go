@@ -32,16 +32,42 @@ type combo struct {
 	props  map[string]materials.Property
 	caps   map[string]float64
 	gEnv   float64
+	// pert multiplies inputs for one draw of the uncertain inputs (nil
+	// for the nominal values); candFactor is the factor on the model's
+	// own value of each property, from the candidate that supplies it.
+	pert       map[string]float64
+	candFactor map[string]float64
+}
+
+// factor returns the multiplier a draw puts on an input (1 when none).
+func (x *combo) factor(key string) float64 {
+	if f, ok := x.pert[key]; ok {
+		return f
+	}
+	return 1
+}
+
+// proto is the prototype value of a property, as drawn.
+func (x *combo) proto(q string) (float64, bool) {
+	v, ok := x.plan.Proto[q]
+	return v * x.factor("proto:"+q), ok
 }
 
 // newCombo fixes every parameter of the case's solution for a candidate
 // pair, a facility and an axis value.
 func (p *Plan) newCombo(c *PlanCase, medium, material *Candidate2, fac *Facility, axis float64) (*combo, error) {
+	return p.newComboDrawn(c, medium, material, fac, axis, nil)
+}
+
+// newComboDrawn is newCombo with the inputs multiplied as one draw of the
+// uncertain inputs says.
+func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Facility, axis float64, pert map[string]float64) (*combo, error) {
 	x := &combo{plan: p, cas: c, medium: medium, material: material, fac: fac, axis: axis,
-		values: feasibility.Values{}, props: map[string]materials.Property{}, caps: map[string]float64{}, gEnv: StandardGravity}
+		values: feasibility.Values{}, props: map[string]materials.Property{}, caps: map[string]float64{}, gEnv: StandardGravity,
+		pert: pert, candFactor: map[string]float64{}}
 	if fac != nil {
 		for k, v := range fac.Caps {
-			x.caps[k] = v
+			x.caps[k] = v * x.factor("cap:"+fac.Name+":"+k)
 		}
 	}
 	ax := p.Settings.Axis
@@ -76,7 +102,10 @@ func (p *Plan) newCombo(c *PlanCase, medium, material *Candidate2, fac *Facility
 			}
 		}
 		for q, pr := range props {
+			f := x.factor("cand:" + cand.Name + ":" + q)
+			pr.Value *= f
 			x.props[q] = pr // the medium, set last, wins
+			x.candFactor[q] = f
 		}
 	}
 	sol := c.Solution
@@ -88,7 +117,7 @@ func (p *Plan) newCombo(c *PlanCase, medium, material *Candidate2, fac *Facility
 		var k float64
 		switch par.Role {
 		case "given":
-			proto, ok := p.Proto[par.Quantity]
+			proto, ok := x.proto(par.Quantity)
 			if !ok {
 				return nil, fmt.Errorf("the prototype has no %s", par.Quantity)
 			}
@@ -113,6 +142,13 @@ func (p *Plan) newCombo(c *PlanCase, medium, material *Candidate2, fac *Facility
 		x.values[par.Quantity] = k
 	}
 	return x, nil
+}
+
+func (x *combo) factorOr1(q string) float64 {
+	if f, ok := x.candFactor[q]; ok {
+		return f
+	}
+	return 1
 }
 
 // modelProperty is the model's own value of a property, from its medium or
@@ -145,14 +181,15 @@ func (x *combo) lnK(q string) (linForm, bool) {
 func (x *combo) form(name string) (linForm, error) {
 	p := x.plan
 	if it, ok := p.Items[name]; ok {
+		v := it.Value * x.factor("item:"+name)
 		if it.ScalesAs == "" {
-			return linForm{C: math.Log(it.Value)}, nil
+			return linForm{C: math.Log(v)}, nil
 		}
 		k, ok := x.lnK(it.ScalesAs)
 		if !ok {
 			return linForm{}, fmt.Errorf("item %s scales as %s, which strategy %q does not set", name, it.ScalesAs, x.cas.Strategy)
 		}
-		return linForm{C: math.Log(it.Value) - k.C, E: -k.E}, nil
+		return linForm{C: math.Log(v) - k.C, E: -k.E}, nil
 	}
 	if v, ok := x.caps[name]; ok {
 		return linForm{C: math.Log(v)}, nil
@@ -160,7 +197,10 @@ func (x *combo) form(name string) (linForm, error) {
 	if q, ok := feasibility.QuantityNamed(name); ok && q.Kind == feasibility.Property {
 		law, _ := x.cas.Solution.Law(name)
 		if law.Status == feasibility.Determined || law.Status == feasibility.Free {
-			if proto, ok := p.Proto[name]; ok {
+			if proto, ok := x.proto(name); ok {
+				// A drawn candidate factor says how far the model's
+				// achieved value misses the value it is set to.
+				proto *= x.factorOr1(name)
 				k, _ := x.lnK(name)
 				return linForm{C: math.Log(proto) - k.C, E: -k.E}, nil
 			}

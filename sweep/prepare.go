@@ -37,6 +37,7 @@ type Plan struct {
 	Limits     []*PlanLimit // study limits (added or overriding)
 	Costs      []*PlanCost
 	Measures   []*PlanMeasure
+	Uncertain  []*Uncertain
 	Catalog    *FacilityCatalog
 	Library    *materials.Library
 	Grid       []float64 // kL values
@@ -133,6 +134,7 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.prepareLimits(&ps)
 	p.prepareCosts(&ps)
 	p.prepareMeasures(&ps)
+	p.prepareUncertain(&ps)
 	if len(ps) == 0 {
 		p.buildGrid(&ps)
 	}

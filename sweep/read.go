@@ -329,5 +329,7 @@ func (r *sheetReader) store(n int, v []string) {
 		s.Costs = append(s.Costs, CostRow{Item: v[0], Coefficient: v[1], Per: v[2], Measure: v[3], Facility: v[4], Row: n})
 	case "Measures":
 		s.Measures = append(s.Measures, MeasureRow{Measure: v[0], Expression: v[1], Unit: v[2], Row: n})
+	case "Uncertainty":
+		s.Uncertain = append(s.Uncertain, UncertainRow{Input: v[0], Of: v[1], Distribution: v[2], Spread: v[3], Row: n})
 	}
 }

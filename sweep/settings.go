@@ -30,6 +30,9 @@ type Settings struct {
 	ReferenceSpeed      string // prototype item giving the test speed
 	MaxPoints           int    // refuse sweeps larger than this
 	InputsDate          string
+	Samples             int     // draws of the uncertain inputs (0: none)
+	Seed                uint64  // of the draws, for reproducible results
+	RobustLevel         float64 // probability a robust scale must reach
 	cells               map[string]Cell
 }
 
@@ -41,6 +44,7 @@ var settingDefaults = map[string]string{
 	"tolerance": "0.1", "currency": "EUR", "recommend": "largest",
 	"prototype_medium": "", "prototype_medium_conditions": "", "prototype_material": "", "prototype_material_conditions": "",
 	"reference_length": "", "reference_speed": "", "max_points": "100000000", "inputs_date": "",
+	"samples": "0", "seed": "1", "robust_level": "0.95",
 }
 
 var settingRequired = []string{"scale_from", "scale_to"}
@@ -163,6 +167,14 @@ func parseSettings(s *Study, ps *Problems) Settings {
 	st.ReferenceLength, st.ReferenceSpeed = text("reference_length"), text("reference_speed")
 	st.MaxPoints = integer("max_points", 1, math.MaxInt32)
 	st.InputsDate = text("inputs_date")
+	st.Samples = integer("samples", 0, 10_000_000)
+	st.Seed = uint64(integer("seed", 0, math.MaxInt32))
+	st.RobustLevel = number("robust_level")
+	if !(st.RobustLevel > 0 && st.RobustLevel < 1) {
+		c, _ := get("robust_level")
+		ps.Add(c.Cell, "robust_level must be a probability between 0 and 1 (0.95 for 95 %%)")
+		st.RobustLevel = 0.95
+	}
 	return st
 }
 

@@ -7,21 +7,22 @@ import (
 
 // Sheet names of a study, in the order they appear in a workbook. A folder
 // study holds one NAME.csv per sheet.
-var SheetNames = []string{"Study", "Prototype", "Media", "Materials", "Custom", "Facilities", "Strategies", "Limits", "Costs", "Measures"}
+var SheetNames = []string{"Study", "Prototype", "Media", "Materials", "Custom", "Facilities", "Strategies", "Limits", "Costs", "Measures", "Uncertainty"}
 
 // Columns of each sheet, in order; the header row of a sheet must name them
 // (extra columns to the right are ignored, so users may add notes).
 var Columns = map[string][]string{
-	"Study":      {"setting", "value", "unit", "note"},
-	"Prototype":  {"item", "value", "unit", "scales_as", "note"},
-	"Media":      {"name", "library_entry", "conditions", "note"},
-	"Materials":  {"name", "library_entry", "conditions", "note"},
-	"Custom":     {"entry", "kind", "property", "value", "unit", "source"},
-	"Facilities": {"facility", "type", "capability", "value", "unit", "note"},
-	"Strategies": {"strategy", "case", "technique", "retain", "relax", "untie", "given", "tuned", "fix", "media", "materials", "facilities", "correction", "note"},
-	"Limits":     {"applies_to", "limit", "expression", "source"},
-	"Costs":      {"item", "coefficient", "per", "measure", "facility", "note"},
-	"Measures":   {"measure", "expression", "unit", "note"},
+	"Study":       {"setting", "value", "unit", "note"},
+	"Prototype":   {"item", "value", "unit", "scales_as", "note"},
+	"Media":       {"name", "library_entry", "conditions", "note"},
+	"Materials":   {"name", "library_entry", "conditions", "note"},
+	"Custom":      {"entry", "kind", "property", "value", "unit", "source"},
+	"Facilities":  {"facility", "type", "capability", "value", "unit", "note"},
+	"Strategies":  {"strategy", "case", "technique", "retain", "relax", "untie", "given", "tuned", "fix", "media", "materials", "facilities", "correction", "note"},
+	"Limits":      {"applies_to", "limit", "expression", "source"},
+	"Costs":       {"item", "coefficient", "per", "measure", "facility", "note"},
+	"Measures":    {"measure", "expression", "unit", "note"},
+	"Uncertainty": {"input", "of", "distribution", "spread", "note"},
 }
 
 // RequiredSheets must be present; the others may be missing or empty.
@@ -105,6 +106,15 @@ type Study struct {
 	Limits     []LimitRow
 	Costs      []CostRow
 	Measures   []MeasureRow
+	Uncertain  []UncertainRow
+}
+
+// UncertainRow gives an input a distribution: a prototype item (of blank),
+// a prototype property (of "prototype"), a candidate's property (of the
+// candidate's name) or a facility capability (of the facility's name).
+type UncertainRow struct {
+	Input, Of, Distribution, Spread string
+	Row                             int
 }
 
 // MeasureRow is a measure the study asks to be reported at model scale

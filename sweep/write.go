@@ -90,6 +90,10 @@ func sheetRecords(s *Study, sheet string) []record {
 		for _, v := range s.Measures {
 			add(v.Row, v.Measure, v.Expression, v.Unit)
 		}
+	case "Uncertainty":
+		for _, v := range s.Uncertain {
+			add(v.Row, v.Input, v.Of, v.Distribution, v.Spread)
+		}
 	}
 	placeRows(recs)
 	return recs
@@ -532,6 +536,7 @@ var instructions = []string{
 	"Limits: limits added to the defaults of the facility types, or overriding a default of the same name (applies_to, limit, expression, source), e.g. design_speed * hull_length / kinematic_viscosity >= 2e6; give the source of each.",
 	"Costs: cost items (item, coefficient, per, measure, facility): coefficient × the measure in units of per, e.g. a facility rate per hour.",
 	"Measures: measures to report at model scale (measure, expression, unit), e.g. stiffness / springs in N/m for the stiffness of each spring.",
+	"Uncertainty: inputs that vary (input, of, distribution, spread): a prototype item (of blank), a prototype property (of prototype), a candidate's property (of the candidate) or a facility capability (of the facility); distribution normal, lognormal or uniform; spread a coefficient of variation or half-width (0.1 or 10 %) or a standard deviation with a unit. Set samples, seed and robust_level on the Study sheet.",
 	"Lists: the names the drop-down lists offer (laws, quantities, library entries, facility types, techniques). It is not read back.",
 }
 

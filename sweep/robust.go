@@ -1,0 +1,401 @@
+package sweep
+
+import (
+	"fmt"
+	"math"
+	"math/rand/v2"
+	"slices"
+	"sort"
+	"strconv"
+	"strings"
+
+	"gonum.org/v1/gonum/stat/distuv"
+
+	"scaleplan/feasibility"
+)
+
+// Distributions an uncertain input may have.
+var Distributions = []string{"normal", "lognormal", "uniform"}
+
+// Uncertain is an input of the study that varies: its nominal value is
+// multiplied, draw by draw, by a factor with a mean (or median) of one.
+type Uncertain struct {
+	Label        string // as the report names it
+	key          string // what it multiplies
+	Distribution string
+	// Rel is the coefficient of variation (normal, lognormal) or the
+	// relative half-width (uniform).
+	Rel float64
+	Row int
+}
+
+// draw returns a factor for one draw.
+func (u *Uncertain) draw(src rand.Source) float64 {
+	switch u.Distribution {
+	case "lognormal":
+		s := math.Sqrt(math.Log1p(u.Rel * u.Rel))
+		return distuv.LogNormal{Mu: 0, Sigma: s, Src: src}.Rand()
+	case "uniform":
+		return distuv.Uniform{Min: 1 - u.Rel, Max: 1 + u.Rel, Src: src}.Rand()
+	default:
+		return distuv.Normal{Mu: 1, Sigma: u.Rel, Src: src}.Rand()
+	}
+}
+
+// applies reports whether the input can change a combination.
+func (u *Uncertain) applies(x *combo) bool {
+	parts := strings.SplitN(u.key, ":", 3)
+	switch parts[0] {
+	case "cand":
+		return (x.medium != nil && x.medium.Name == parts[1]) || (x.material != nil && x.material.Name == parts[1])
+	case "cap":
+		return x.fac != nil && x.fac.Name == parts[1]
+	}
+	return true
+}
+
+// prepareUncertain reads the Uncertainty sheet.
+func (p *Plan) prepareUncertain(ps *Problems) {
+	for _, r := range p.Study.Uncertain {
+		in, of := strings.TrimSpace(r.Input), strings.TrimSpace(r.Of)
+		u := &Uncertain{Distribution: strings.ToLower(strings.TrimSpace(r.Distribution)), Row: r.Row}
+		if !slices.Contains(Distributions, u.Distribution) {
+			ps.Add(At("Uncertainty", r.Row, "distribution"), "unknown distribution %q%s", r.Distribution, feasibility.Suggest(u.Distribution, Distributions))
+			continue
+		}
+		var nominal float64
+		var dim feasibility.Dimension
+		switch {
+		case of == "":
+			it, ok := p.Items[in]
+			if !ok {
+				ps.Add(At("Uncertainty", r.Row, "input"), "no prototype item %q%s (name a candidate or a facility in the of column for their inputs)", in, feasibility.Suggest(in, p.ItemOrder))
+				continue
+			}
+			u.key, u.Label, nominal, dim = "item:"+in, in, it.Value, it.Dim
+		case of == "prototype":
+			v, ok := p.Proto[in]
+			if !ok {
+				ps.Add(At("Uncertainty", r.Row, "input"), "the prototype has no property %q", in)
+				continue
+			}
+			q, _ := feasibility.QuantityNamed(in)
+			u.key, u.Label, nominal, dim = "proto:"+in, "prototype "+in, v, q.Dim
+		default:
+			found := false
+			for _, c := range append(append([]*Candidate2(nil), p.Media...), p.Materials...) {
+				if c.Name == of {
+					pr, ok := c.Props[in]
+					if !ok {
+						ps.Add(At("Uncertainty", r.Row, "input"), "%s %q has no %s", c.Role, of, in)
+						found = true
+						break
+					}
+					q, _ := feasibility.QuantityNamed(in)
+					u.key, u.Label, nominal, dim, found = "cand:"+of+":"+in, in+" of "+of, pr.Value, q.Dim, true
+				}
+			}
+			if f := p.facility(of); !found && f != nil {
+				v, ok := f.Caps[in]
+				if !ok {
+					ps.Add(At("Uncertainty", r.Row, "input"), "facility %q states no %s", of, in)
+					continue
+				}
+				cp, _ := p.Catalog.Capability(f.Type, in)
+				u.key, u.Label, nominal, dim, found = "cap:"+of+":"+in, in+" of "+of, v, cp.Dim, true
+			}
+			if !found {
+				ps.Add(At("Uncertainty", r.Row, "of"), "%q is neither blank (a prototype item), prototype, a candidate nor a facility", of)
+				continue
+			}
+			if u.key == "" {
+				continue
+			}
+		}
+		rel, err := parseSpread(r.Spread, nominal, dim)
+		if err != nil {
+			ps.Add(At("Uncertainty", r.Row, "spread"), "%v", err)
+			continue
+		}
+		u.Rel = rel
+		p.Uncertain = append(p.Uncertain, u)
+	}
+	if len(p.Uncertain) > 0 && p.Settings.Samples == 0 {
+		p.Settings.Samples = 2000
+	}
+}
+
+// parseSpread reads a relative spread ("0.1", "10%") or an absolute one
+// with a unit ("0.2 m/s"), and returns it relative to the nominal value.
+func parseSpread(s string, nominal float64, dim feasibility.Dimension) (float64, error) {
+	t := strings.TrimSpace(s)
+	if strings.HasSuffix(t, "%") {
+		v, err := strconv.ParseFloat(strings.TrimSpace(strings.TrimSuffix(t, "%")), 64)
+		if err != nil || !(v > 0) || math.IsInf(v, 0) {
+			return 0, fmt.Errorf("spread %q is not a positive percentage", s)
+		}
+		return v / 100, nil
+	}
+	v, u, err := feasibility.ParseValue(t)
+	if err != nil {
+		return 0, err
+	}
+	if !(v > 0) {
+		return 0, fmt.Errorf("spread %q must be positive", s)
+	}
+	if u.Text == "" {
+		return v, nil
+	}
+	if !u.Dim.Equal(dim) {
+		return 0, fmt.Errorf("unit %q of the spread does not fit the input (%s)", u.Text, dim)
+	}
+	return v / nominal, nil
+}
+
+// Robust is how likely each scale is to stay feasible when the uncertain
+// inputs vary.
+type Robust struct {
+	Samples int
+	Level   float64
+	// Probability of feasibility at each grid scale, and the largest
+	// standard error of those estimates.
+	Probability []float64
+	StdErr      float64
+	// Window holds the scales whose probability reaches Level.
+	Window Window
+	// MostFailing names, per grid scale, the limit that most often fails
+	// there ("" where nothing fails).
+	MostFailing []string
+	// Sensitivity ranks the inputs by how much the robust window widens
+	// (in decades of kL) when the input is known exactly.
+	Sensitivity []InputGain
+	Note        string
+}
+
+// InputGain is an input's effect on the robust window.
+type InputGain struct {
+	Input string
+	Gain  float64
+}
+
+// robust samples the uncertain inputs for a combination at its chosen
+// axis value. The margins of products-of-powers limits are linear in the
+// log of every input, so each input's effect is found once (a decade's
+// change) and each draw is a sum; other limits keep their nominal set.
+func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
+	x := o.combo
+	p := x.plan
+	var inputs []*Uncertain
+	for _, u := range p.Uncertain {
+		if u.applies(x) {
+			inputs = append(inputs, u)
+		}
+	}
+	R := &Robust{Samples: p.Settings.Samples, Level: p.Settings.RobustLevel}
+	nl := len(o.limits)
+	sens := make([][]float64, len(inputs)) // [input][limit] change of A per decade
+	for i, u := range inputs {
+		y, err := p.newComboDrawn(x.cas, x.medium, x.material, x.fac, x.axis, map[string]float64{u.key: 10})
+		if err != nil {
+			continue
+		}
+		lim, _, err := y.limitsFor()
+		if err != nil || len(lim) != nl {
+			continue
+		}
+		sens[i] = make([]float64, nl)
+		for j := range lim {
+			if lim[j].info.Linear && o.limits[j].info.Linear {
+				sens[i][j] = lim[j].info.A - o.limits[j].info.A
+			}
+		}
+	}
+	// The nominal set of the limits that are not products of powers.
+	u0, u1 := us[0], us[len(us)-1]
+	fixed := []uInterval{{u0, u1, RangeLimit, RangeLimit}}
+	hasNonlinear := false
+	for _, l := range o.limits {
+		if !l.info.Linear && l.set != nil {
+			fixed = intersect(fixed, l.set)
+			hasNonlinear = true
+		}
+	}
+	if hasNonlinear {
+		R.Note = "limits that are not products of powers keep their nominal feasible set"
+	}
+	if len(o.conditions) > 0 {
+		if R.Note != "" {
+			R.Note += "; "
+		}
+		R.Note += "similarity conditions are taken at their nominal values"
+	}
+	n := R.Samples
+	deltas := make([][]float64, n)
+	src := rand.NewPCG(seed, uint64(index)+1)
+	for s := range deltas {
+		deltas[s] = make([]float64, len(inputs))
+		for i, u := range inputs {
+			f := u.draw(src)
+			if f <= 0 {
+				f = 1e-300
+			}
+			deltas[s][i] = math.Log10(f)
+		}
+	}
+	condOK := !o.window.Empty() || len(o.conditions) == 0
+	sample := func(skip int) (prob []float64, fails [][]int) {
+		count := make([]int, len(us)+1)
+		fails = make([][]int, nl)
+		for j := range fails {
+			fails[j] = make([]int, len(us)+1)
+		}
+		A := make([]float64, nl)
+		for s := 0; s < n; s++ {
+			for j, l := range o.limits {
+				A[j] = l.info.A
+				for i := range inputs {
+					if i != skip && sens[i] != nil {
+						A[j] += sens[i][j] * deltas[s][i]
+					}
+				}
+			}
+			lo, hi, loL, hiL, empty := u0, u1, -1, -1, -1
+			for j, l := range o.limits {
+				if !l.info.Linear {
+					continue
+				}
+				b := l.info.B
+				switch {
+				case b == 0:
+					if A[j] < 0 && empty < 0 {
+						empty = j
+					}
+				case b > 0:
+					if e := -A[j] / b; e > lo {
+						lo, loL = e, j
+					}
+				default:
+					if e := -A[j] / b; e < hi {
+						hi, hiL = e, j
+					}
+				}
+			}
+			// Grid points inside [lo, hi] and the nominal fixed set are
+			// feasible; the rest fail at the edge's limit.
+			first := sort.SearchFloat64s(us, lo)
+			last := sort.Search(len(us), func(i int) bool { return us[i] > hi }) - 1
+			if empty >= 0 || !condOK || lo > hi {
+				j := empty
+				if j < 0 {
+					j = loL
+				}
+				if j >= 0 {
+					fails[j][0]++
+					fails[j][len(us)]--
+				}
+				continue
+			}
+			if first <= last {
+				count[first]++
+				count[last+1]--
+			}
+			if loL >= 0 && first > 0 {
+				fails[loL][0]++
+				fails[loL][first]--
+			}
+			if hiL >= 0 && last+1 < len(us) {
+				fails[hiL][last+1]++
+				fails[hiL][len(us)]--
+			}
+		}
+		prob = make([]float64, len(us))
+		c := 0
+		for i := range us {
+			c += count[i]
+			prob[i] = float64(c) / float64(n)
+		}
+		for j := range fails {
+			f := 0
+			for i := range us {
+				f += fails[j][i]
+				fails[j][i] = f
+			}
+		}
+		// Scales outside the nominal fixed set never count as feasible.
+		for i, u := range us {
+			in := false
+			for _, iv := range fixed {
+				if u >= iv.lo && u <= iv.hi {
+					in = true
+				}
+			}
+			if !in {
+				prob[i] = 0
+			}
+		}
+		return prob, fails
+	}
+	prob, fails := sample(-1)
+	R.Probability = prob
+	R.MostFailing = make([]string, len(us))
+	for i := range us {
+		best, arg := 0, -1
+		for j := range fails {
+			if fails[j][i] > best {
+				best, arg = fails[j][i], j
+			}
+		}
+		if arg >= 0 {
+			R.MostFailing[i] = o.limits[arg].info.Name
+		}
+	}
+	for _, q := range prob {
+		if se := math.Sqrt(q * (1 - q) / float64(n)); se > R.StdErr {
+			R.StdErr = se
+		}
+	}
+	R.Window = probWindow(us, prob, R.Level)
+	base := width(R.Window)
+	for i, u := range inputs {
+		if sens[i] == nil {
+			continue
+		}
+		pi, _ := sample(i)
+		R.Sensitivity = append(R.Sensitivity, InputGain{u.Label, width(probWindow(us, pi, R.Level)) - base})
+	}
+	sort.SliceStable(R.Sensitivity, func(a, b int) bool { return R.Sensitivity[a].Gain > R.Sensitivity[b].Gain })
+	return R
+}
+
+// probWindow returns the scales whose probability reaches level, with
+// edges interpolated between grid points.
+func probWindow(us, prob []float64, level float64) Window {
+	var out []uInterval
+	in := false
+	var start float64
+	for i, u := range us {
+		ok := prob[i] >= level
+		switch {
+		case ok && !in:
+			start = u
+			if i > 0 {
+				start = interp(us[i-1], u, prob[i-1], prob[i], level)
+			}
+			in = true
+		case !ok && in:
+			out = append(out, uInterval{start, interp(us[i-1], u, prob[i-1], prob[i], level), "robust", "robust"})
+			in = false
+		}
+	}
+	if in {
+		out = append(out, uInterval{start, us[len(us)-1], "robust", RangeLimit})
+	}
+	return toWindow(out)
+}
+
+func interp(u0, u1, p0, p1, level float64) float64 {
+	if p1 == p0 {
+		return u0
+	}
+	return u0 + (level-p0)/(p1-p0)*(u1-u0)
+}
