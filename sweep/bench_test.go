@@ -106,3 +106,30 @@ func BenchmarkScenarios(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkScenariosRobust runs every built-in scenario with 10,000 draws
+// of its uncertain inputs; compare with BenchmarkScenarios.
+func BenchmarkScenariosRobust(b *testing.B) {
+	list, err := Scenarios()
+	if err != nil {
+		b.Fatal(err)
+	}
+	cat, _ := NewFacilityCatalog()
+	for i := 0; i < b.N; i++ {
+		for _, sc := range list {
+			s, err := LoadScenario(sc.Name)
+			if err != nil {
+				b.Fatal(err)
+			}
+			s.Settings["samples"] = Setting{Name: "samples", Value: "10000", Cell: Cell{"Study", 99, 2}}
+			lib, _ := materials.Default()
+			p, err := Prepare(s, lib, cat)
+			if err != nil {
+				b.Fatal(err)
+			}
+			if _, err := p.Run(context.Background()); err != nil {
+				b.Fatal(err)
+			}
+		}
+	}
+}
