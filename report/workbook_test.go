@@ -765,6 +765,11 @@ func formulaStudy(t *testing.T) *sweep.Study {
 			n++
 		}
 	}
+	for i := range s.Uncertain {
+		if s.Uncertain[i].Of == "tank water" {
+			s.Uncertain[i].Of = fMedium
+		}
+	}
 	for i := range s.Facilities {
 		if s.Facilities[i].Facility == "Estuary tank" {
 			s.Facilities[i].Facility = fFacility
