@@ -136,10 +136,10 @@ func drawBand(dc draw.Canvas, res *sweep.Result, bc BandChart) {
 	if bc.More > 0 {
 		title += fmt.Sprintf(" (+%d more combinations not shown)", bc.More)
 	}
-	title += "\nblue: feasible, orange: short of a limit; ticks: window edges, each named by the limit that sets it; ▲ recommended scale"
+	title += "\nblue: feasible, orange: short of a limit; ticks: window edges named by their limit; ▲ recommended scale"
 	for _, row := range bc.Rows {
 		if row.Combo.Robust != nil {
-			title += fmt.Sprintf("; dark band: feasible with probability ≥ %.0f %%", 100*row.Combo.Robust.Level)
+			title += fmt.Sprintf("\ndark band under a row: scales feasible with a probability of at least %.0f %% when the uncertain inputs vary", 100*row.Combo.Robust.Level)
 			break
 		}
 	}

@@ -120,10 +120,28 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 	return cm
 }
 
+// isFreeChoiceAxis reports whether the second axis sweeps a free choice:
+// its values are then scale factors, not physical values.
+func isFreeChoiceAxis(p *sweep.Plan) bool {
+	for _, st := range p.Strategies {
+		for _, c := range st.Cases {
+			for _, f := range c.Solution.Free {
+				if f == p.Settings.Axis {
+					return true
+				}
+			}
+		}
+	}
+	return false
+}
+
 // axisUnit is the SI unit of the second axis.
 func axisUnit(p *sweep.Plan) string {
 	ax := p.Settings.Axis
 	unit := ""
+	if isFreeChoiceAxis(p) {
+		return "k = prototype/model"
+	}
 	if ax == "salinity" {
 		unit = "kg/kg"
 	} else if q, err := feasibility.LookupQuantity(ax); err == nil {
@@ -161,6 +179,9 @@ func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
 		res.Name, cm.Strategy, cm.Axis, clip(cm.Label, 80))
 	p := newPlot(title, cm.X[0], cm.X[len(cm.X)-1])
 	p.Y.Label.Text = cm.Axis
+	if cm.Unit == "k = prototype/model" {
+		p.Y.Label.Text = cm.Axis + " scale"
+	}
 	if cm.Unit != "" {
 		p.Y.Label.Text += " [" + cm.Unit + "]"
 	}

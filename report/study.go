@@ -57,21 +57,42 @@ func reservedName(s string) bool {
 	return len(u) == 4 && (strings.HasPrefix(u, "COM") || strings.HasPrefix(u, "LPT")) && u[3] >= '0' && u[3] <= '9'
 }
 
-// studyOutput writes one output of a study into a folder, under a name
-// starting with base (a FileName), and returns the paths it wrote.
-type studyOutput func(dir, base string, res *sweep.Result) ([]string, error)
-
-// studyOutputs are the outputs of a study, in the order they are written
-// and listed.
-var studyOutputs = []studyOutput{
-	func(dir, base string, res *sweep.Result) ([]string, error) {
-		p := filepath.Join(dir, base+".xlsx")
-		return []string{p}, WriteWorkbook(p, res)
-	},
-	func(dir, base string, res *sweep.Result) ([]string, error) {
-		p := filepath.Join(dir, base+".memo.md")
-		return []string{p}, WriteMemo(p, res)
-	},
+// studyOutputs writes the outputs of a study into a folder, under names
+// starting with base (a FileName), and returns the paths it wrote, in the
+// order they are listed: the feasibility maps (PNG, and the format asked
+// for when it is another), the workbook with the PNG maps embedded, and
+// the memo.
+func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, format string) ([]string, error) {
+	maps, err := WritePlots(dir, base, res, PlotPNG)
+	if err != nil {
+		return nil, err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	files := append([]string(nil), maps...)
+	if format != PlotPNG {
+		more, err := WritePlots(dir, base, res, format)
+		if err != nil {
+			return nil, err
+		}
+		files = append(files, more...)
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	wb := filepath.Join(dir, base+".xlsx")
+	if err := WriteWorkbook(wb, res, maps...); err != nil {
+		return nil, err
+	}
+	if err := ctx.Err(); err != nil {
+		return nil, err
+	}
+	memo := filepath.Join(dir, base+".memo.md")
+	if err := WriteMemo(memo, res); err != nil {
+		return nil, err
+	}
+	return append([]string{wb, memo}, files...), nil
 }
 
 // WriteStudy writes every output of a study into dir and returns the paths
@@ -83,9 +104,20 @@ var studyOutputs = []studyOutput{
 // ctx is cancelled (an interrupt), nothing is moved, the staging folder is
 // removed, and dir is left as it was: it holds every new output of the
 // study or none, and never a half-written file.
-func WriteStudy(ctx context.Context, dir string, res *sweep.Result) ([]string, error) {
+//
+// The maps are PNG; a format of svg or pdf writes those too (the first of
+// formats counts; none means PNG only).
+func WriteStudy(ctx context.Context, dir string, res *sweep.Result, formats ...string) ([]string, error) {
 	if err := ctx.Err(); err != nil {
 		return nil, err
+	}
+	format := PlotPNG
+	if len(formats) > 0 {
+		f, err := ParsePlotFormat(formats[0])
+		if err != nil {
+			return nil, err
+		}
+		format = f
 	}
 	base := FileName(res.Name)
 	stage, err := os.MkdirTemp(dir, "."+base+partialMark+"*")
@@ -93,17 +125,13 @@ func WriteStudy(ctx context.Context, dir string, res *sweep.Result) ([]string, e
 		return nil, fmt.Errorf("output folder %s: %v", dir, err)
 	}
 	defer os.RemoveAll(stage)
-	var staged []string
-	for _, out := range studyOutputs {
-		if err := ctx.Err(); err != nil {
-			return nil, err
-		}
-		files, err := out(stage, base, res)
-		if err != nil {
-			// Name the output as it would have been, not the stage.
-			return nil, fmt.Errorf("%s", strings.ReplaceAll(err.Error(), stage, dir))
-		}
-		staged = append(staged, files...)
+	staged, err := studyOutputs(ctx, stage, base, res, format)
+	if err != nil && ctx.Err() != nil {
+		return nil, ctx.Err()
+	}
+	if err != nil {
+		// Name the output as it would have been, not the stage.
+		return nil, fmt.Errorf("%s", strings.ReplaceAll(err.Error(), stage, dir))
 	}
 	if err := ctx.Err(); err != nil {
 		return nil, err

@@ -9,6 +9,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"regexp"
 	"sort"
 	"strings"
 
@@ -182,11 +183,59 @@ func sortedZip(w io.Writer, b []byte) error {
 	sort.SliceStable(files, func(i, j int) bool { return zipOrder(files[i].Name) < zipOrder(files[j].Name) })
 	zw := zip.NewWriter(w)
 	for _, f := range files {
+		if f.Name == "[Content_Types].xml" {
+			if err := copySortedTypes(zw, f); err != nil {
+				return err
+			}
+			continue
+		}
 		if err := zw.Copy(f); err != nil {
 			return err
 		}
 	}
 	return zw.Close()
+}
+
+var defaultType = regexp.MustCompile(`<Default [^>]*>(</Default>)?`)
+
+// copySortedTypes writes the content-types part with its Default entries
+// sorted: the spreadsheet library lists image types in map order.
+func copySortedTypes(zw *zip.Writer, f *zip.File) error {
+	r, err := f.Open()
+	if err != nil {
+		return err
+	}
+	b, err := io.ReadAll(r)
+	r.Close()
+	if err != nil {
+		return err
+	}
+	locs := defaultType.FindAllIndex(b, -1)
+	if len(locs) > 1 {
+		parts := make([]string, len(locs))
+		contiguous := true
+		for i, l := range locs {
+			parts[i] = string(b[l[0]:l[1]])
+			if i > 0 && l[0] != locs[i-1][1] {
+				contiguous = false
+			}
+		}
+		if contiguous {
+			sort.Strings(parts)
+			var out []byte
+			out = append(out, b[:locs[0][0]]...)
+			out = append(out, strings.Join(parts, "")...)
+			out = append(out, b[locs[len(locs)-1][1]:]...)
+			b = out
+		}
+	}
+	hdr := f.FileHeader
+	w, err := zw.CreateHeader(&zip.FileHeader{Name: hdr.Name, Method: hdr.Method, Modified: hdr.Modified})
+	if err != nil {
+		return err
+	}
+	_, err = w.Write(b)
+	return err
 }
 
 // zipOrder keeps the content-types part first, as spreadsheet programs
