@@ -122,6 +122,12 @@ func WritePlots(dir, base string, res *sweep.Result, format string) ([]string, e
 				return files, err
 			}
 		}
+		for _, rs := range RequirementData(res, sr) {
+			kind := "require-" + FileName(rs.Capability+"-"+rs.Limit)
+			if err := write(kind, i, sr, plotWidth, requirementHeight, func(dc draw.Canvas) { drawRequirement(dc, res, rs) }); err != nil {
+				return files, err
+			}
+		}
 	}
 	return files, nil
 }

@@ -1,0 +1,120 @@
+package report
+
+import (
+	"fmt"
+	"image/color"
+	"math"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+
+	"scaleplan/sweep"
+)
+
+// RequirementSeries is the data behind a requirement plot: one facility
+// capability that limits a window of the strategy, the value the model
+// needs at each scale, and what each study facility has.
+type RequirementSeries struct {
+	Strategy, Capability, Unit, Limit string
+	X                                 []float64
+	Curves                            []RequirementCurve
+}
+
+// RequirementCurve is the requirement of one combination against its
+// facility's capability.
+type RequirementCurve struct {
+	Label   string
+	Needed  []float64
+	Have    float64
+	AtLeast bool
+}
+
+// RequirementData returns, for each capability that sets an edge of a
+// window of the strategy, the requirement of every combination that names
+// it.
+func RequirementData(res *sweep.Result, sr *sweep.StrategyResult) []RequirementSeries {
+	grid := res.Plan.Grid
+	idx := sampleIndices(len(grid), MaxPlotPoints)
+	limiting := map[string]bool{}
+	for _, c := range sr.Combos {
+		for _, iv := range c.Window {
+			limiting[iv.LoLimit], limiting[iv.HiLimit] = true, true
+		}
+	}
+	var out []RequirementSeries
+	index := map[string]int{}
+	for _, c := range sr.Combos {
+		for _, r := range c.Requirements {
+			if !limiting[r.Limit] {
+				continue
+			}
+			key := r.Capability + "\x00" + r.Limit
+			i, ok := index[key]
+			if !ok {
+				i = len(out)
+				index[key] = i
+				out = append(out, RequirementSeries{Strategy: sr.Name, Capability: r.Capability, Unit: r.Unit, Limit: r.Limit, X: pick(grid, idx)})
+			}
+			out[i].Curves = append(out[i].Curves, RequirementCurve{Label: comboLabel(c), Needed: pick(r.Values, idx), Have: r.Have, AtLeast: r.AtLeast})
+		}
+	}
+	return out
+}
+
+// requirementColors tell the combinations apart (our own choice: dark,
+// distinct hues that stay apart in grey print).
+var requirementColors = []color.NRGBA{
+	{0x0D, 0x34, 0x66, 0xFF}, {0xA8, 0x43, 0x00, 0xFF}, {0x2E, 0x7D, 0x32, 0xFF}, {0x6A, 0x1B, 0x9A, 0xFF}, {0x45, 0x45, 0x45, 0xFF},
+}
+
+const requirementHeight = 4.6 * vg.Inch
+
+func drawRequirement(dc draw.Canvas, res *sweep.Result, rs RequirementSeries) {
+	dir := "at least"
+	if len(rs.Curves) > 0 && !rs.Curves[0].AtLeast {
+		dir = "at most"
+	}
+	title := fmt.Sprintf("%s: %s, %s the model needs (limit %q)\nsolid: needed at each scale; dashed: what each facility has", res.Name, rs.Strategy, rs.Capability, rs.Limit)
+	p := newPlot(title, rs.X[0], rs.X[len(rs.X)-1])
+	p.Y.Label.Text = fmt.Sprintf("%s needed (%s) [%s]", rs.Capability, dir, rs.Unit)
+	p.Y.Scale = plot.LogScale{}
+	p.Y.Tick.Marker = logTicks{format: plainNumber}
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, c := range rs.Curves {
+		for _, v := range append(append([]float64(nil), c.Needed...), c.Have) {
+			if v > 0 && !math.IsInf(v, 0) {
+				lo, hi = math.Min(lo, v), math.Max(hi, v)
+			}
+		}
+	}
+	if !(hi > lo) {
+		lo, hi = lo/2, lo*2
+	}
+	p.Y.Min, p.Y.Max = lo/1.3, hi*1.3
+	for i, c := range rs.Curves {
+		clr := requirementColors[i%len(requirementColors)]
+		var xy plotter.XYs
+		for k, v := range c.Needed {
+			if v > 0 && !math.IsInf(v, 0) {
+				xy = append(xy, plotter.XY{X: rs.X[k], Y: v})
+			}
+		}
+		if len(xy) > 1 {
+			l, err := plotter.NewLine(xy)
+			if err == nil {
+				l.LineStyle = draw.LineStyle{Color: clr, Width: 1.6}
+				p.Add(l)
+				p.Legend.Add(clip(c.Label, 60), l)
+			}
+		}
+		h, err := plotter.NewLine(plotter.XYs{{X: rs.X[0], Y: c.Have}, {X: rs.X[len(rs.X)-1], Y: c.Have}})
+		if err == nil {
+			h.LineStyle = draw.LineStyle{Color: clr, Width: 1.1, Dashes: []vg.Length{5, 3}}
+			p.Add(h)
+		}
+	}
+	p.Legend.Top = true
+	p.Draw(inset(dc))
+}
