@@ -119,3 +119,16 @@ func BenchmarkStreamWriterAlone(b *testing.B) {
 	}
 	b.ReportMetric(float64(cells)*float64(b.N)/b.Elapsed().Seconds(), "cells/s")
 }
+
+// BenchmarkPlots renders every feasibility map of the synthetic study as
+// PNG.
+func BenchmarkPlots(b *testing.B) {
+	res := syntheticResult(b)
+	dir := b.TempDir()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if _, err := WritePlots(dir, "bench", res, PlotPNG); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
