@@ -160,21 +160,30 @@ func resolve(p string) (string, error) {
 }
 
 // refuseRepeatedInputs refuses a study given twice, under any spelling of
-// its path (or through a link): both would write the same outputs.
+// its path (through a link, a hard link, or in another case on a file
+// system that ignores case): both would write the same outputs.
 func refuseRepeatedInputs(inputs []string) error {
-	seen := map[string]string{}
+	type input struct {
+		path, resolved string
+		info           os.FileInfo
+	}
+	var seen []input
 	for _, in := range inputs {
 		r, err := resolve(in)
 		if err != nil {
 			return err
 		}
-		if first, dup := seen[r]; dup {
-			if first == in {
+		info, _ := os.Stat(in)
+		for _, first := range seen {
+			if first.resolved != r && (info == nil || first.info == nil || !os.SameFile(first.info, info)) {
+				continue
+			}
+			if first.path == in {
 				return fmt.Errorf("the study %s is given twice: give each study once", in)
 			}
-			return fmt.Errorf("the studies %s and %s are the same file or folder: give each study once", first, in)
+			return fmt.Errorf("the studies %s and %s are the same file or folder: give each study once", first.path, in)
 		}
-		seen[r] = in
+		seen = append(seen, input{in, r, info})
 	}
 	return nil
 }
@@ -214,9 +223,15 @@ func refuseInputAsOutput(out string, inputs []string) error {
 			return err
 		}
 		xlsx := strings.EqualFold(filepath.Ext(in), ".xlsx")
+		same := false
+		if a, err := os.Stat(out); err == nil {
+			if b, err := os.Stat(in); err == nil {
+				same = os.SameFile(a, b) // also in another case on a file system that ignores case
+			}
+		}
 		for _, o := range outs {
 			for _, i := range ins {
-				if i == o || xlsx && within(o, i) {
+				if same || i == o || xlsx && within(o, i) {
 					return fmt.Errorf("the output folder %s holds the study %s: choose another --out so nothing is written over an input", out, in)
 				}
 			}
