@@ -258,7 +258,7 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 			r.Err = err.Error()
 			return r
 		}
-		out, err := x.sweep(us, cache, scratch)
+		out, err := x.sweep(ctx, us, cache, scratch)
 		if err != nil {
 			r.Err = err.Error()
 			return r
@@ -467,12 +467,14 @@ func formatSI(v float64, unit string) string {
 }
 
 // sweep evaluates every limit over the grid and finds the window.
-func (x *combo) sweep(us []float64, cache sampleCache, limiting []int) (*sweepOut, error) {
+func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limiting []int) (*sweepOut, error) {
 	limits, notes, err := x.limitsFor()
 	if err != nil {
 		return nil, err
 	}
-	sample(limits, us, cache)
+	if err := sample(ctx, limits, us, cache); err != nil {
+		return nil, err
+	}
 	out := &sweepOut{combo: x, limits: limits, notes: notes}
 	u0, u1 := us[0], us[len(us)-1]
 	win := limitWindow(limits, us, nil)
@@ -626,7 +628,7 @@ func sameForms(a, b map[string]linForm) bool {
 
 // sample fills vals and set of every limit that is not a product of
 // powers, from the cache where it can.
-func sample(limits []compiled, us []float64, cache sampleCache) {
+func sample(ctx context.Context, limits []compiled, us []float64, cache sampleCache) error {
 	for j := range limits {
 		l := &limits[j]
 		if l.info.Linear {
@@ -640,6 +642,11 @@ func sample(limits []compiled, us []float64, cache sampleCache) {
 		margin := func(u float64) float64 { return lc.margin(u) }
 		l.vals = make([]float64, len(us))
 		for i, u := range us {
+			if i%65536 == 0 {
+				if err := ctx.Err(); err != nil {
+					return err
+				}
+			}
 			l.vals[i] = margin(u)
 		}
 		l.set = sampledFrom(us, l.vals, margin, l.info.Name)
@@ -648,6 +655,7 @@ func sample(limits []compiled, us []float64, cache sampleCache) {
 		}
 		cache[l.info.Name] = l
 	}
+	return nil
 }
 
 // margin evaluates a limit's margin at u = log10 kL.

@@ -229,7 +229,7 @@ func (p *Plan) prepareItems(ps *Problems) {
 	st := &p.Settings
 	pick := func(setting, def, quantity string) string {
 		if v := map[string]string{"reference_length": st.ReferenceLength, "reference_speed": st.ReferenceSpeed}[setting]; v != "" {
-			if _, ok := p.Items[v]; !ok {
+			if _, ok := p.Items[v]; !ok && len(p.Items) > 0 {
 				ps.Add(st.Cell(setting), "%s %q is not a prototype item%s", setting, v, feasibility.Suggest(v, p.ItemOrder))
 			}
 			return v

@@ -52,3 +52,13 @@ func TestBadInput(t *testing.T) {
 		})
 	}
 }
+
+func TestDanglingFlag(t *testing.T) {
+	var stdout, stderr bytes.Buffer
+	if code := run([]string{"scaleplan", "run", "study", "--out"}, &stdout, &stderr); code != 2 || !strings.Contains(stderr.String(), "flag --out needs a value") {
+		t.Errorf("exit %d, stderr %q; want 2 and the flag named", code, stderr.String())
+	}
+	if code := run([]string{"scaleplan", "run", "--format", "gif"}, &stdout, &stderr); code != 2 {
+		t.Errorf("--format gif: exit %d, want 2", code)
+	}
+}

@@ -40,7 +40,10 @@ func main() {
 // panics on user input and prints one line on stderr for an error.
 func run(args []string, stdout, stderr io.Writer) int {
 	app := newApp(stdout, stderr)
-	err := app.Run(flagsFirst(app, args))
+	ordered, err := flagsFirst(app, args)
+	if err == nil {
+		err = app.Run(ordered)
+	}
 	if err == nil {
 		return exitOK
 	}
@@ -95,9 +98,9 @@ func commands() []*cli.Command {
 // flagsFirst moves a subcommand's flags before its arguments, so that
 // "scaleplan groups F=N V=m/s --json" works as well as the flags-first
 // order the command-line library expects. "--" ends the flags.
-func flagsFirst(app *cli.App, args []string) []string {
+func flagsFirst(app *cli.App, args []string) ([]string, error) {
 	if len(args) < 3 {
-		return args
+		return args, nil
 	}
 	var cmd *cli.Command
 	for _, c := range app.Commands {
@@ -106,7 +109,7 @@ func flagsFirst(app *cli.App, args []string) []string {
 		}
 	}
 	if cmd == nil {
-		return args
+		return args, nil
 	}
 	takesValue := map[string]bool{}
 	for _, f := range cmd.Flags {
@@ -125,7 +128,10 @@ func flagsFirst(app *cli.App, args []string) []string {
 		if strings.HasPrefix(a, "-") && len(a) > 1 {
 			flags = append(flags, a)
 			name := strings.TrimLeft(a, "-")
-			if !strings.Contains(name, "=") && takesValue[name] && i+1 < len(args) {
+			if !strings.Contains(name, "=") && takesValue[name] {
+				if i+1 >= len(args) {
+					return nil, usagef("flag %s needs a value", a)
+				}
 				i++
 				flags = append(flags, args[i])
 			}
@@ -138,5 +144,5 @@ func flagsFirst(app *cli.App, args []string) []string {
 		out = append(out, "--")
 		out = append(out, rest...)
 	}
-	return out
+	return out, nil
 }

@@ -26,7 +26,10 @@ func runMaterials(args ...string) (int, string, string) {
 	cmd := materialsCommand()
 	cmd.OnUsageError = app.OnUsageError
 	app.Commands = append(app.Commands, cmd)
-	err := app.Run(flagsFirst(app, full))
+	ordered, err := flagsFirst(app, full)
+	if err == nil {
+		err = app.Run(ordered)
+	}
 	if err == nil {
 		return exitOK, stdout.String(), stderr.String()
 	}

@@ -29,12 +29,17 @@ func runCommand() *cli.Command {
 		Flags: []cli.Flag{
 			&cli.StringFlag{Name: "out", Value: "scaleplan-out", Usage: "output folder"},
 			&cli.BoolFlag{Name: "json", Usage: "print the results as JSON"},
+			&cli.StringFlag{Name: "format", Value: "png", Usage: "format of the feasibility maps: png, svg or pdf (PNG maps are always written too, for the workbook)"},
 			&cli.StringFlag{Name: "max-points", Usage: "allow sweeps of up to N points (grid points × combinations), overriding each study's max_points (default 1e8)"},
 		},
 		Action: func(c *cli.Context) error {
 			maxPoints, err := parseMaxPoints(c.String("max-points"))
 			if err != nil {
 				return err
+			}
+			format, err := report.ParsePlotFormat(c.String("format"))
+			if err != nil {
+				return usagef("--format: %v", err)
 			}
 			cat, err := sweep.NewFacilityCatalog()
 			if err != nil {
@@ -84,7 +89,7 @@ func runCommand() *cli.Command {
 					failed = append(failed, fmt.Sprintf("%s:\n%s", o.Name, indent(o.Err.Error())))
 					continue
 				}
-				files, err := report.WriteStudy(ctx, out, o.Result)
+				files, err := report.WriteStudy(ctx, out, o.Result, format)
 				if err != nil {
 					if ctx.Err() != nil {
 						return interrupted(written, len(outcomes))
