@@ -19,6 +19,9 @@ Usage:
 
 Commands:
 
+	run        sweep studies; write workbooks, feasibility maps and memos
+	init       write a built-in scenario as a study to edit
+	check      report every problem of a study with its sheet and cell
 	rules      solve the scale laws of one strategy
 	groups     Buckingham pi groups of a list of variables
 	materials  the library of model materials and media
@@ -30,6 +33,45 @@ Exit status: 0 on success (also when a request turns out infeasible: that
 is a result), 1 on bad input (an unknown name, a malformed value, an
 inconsistent request), 2 on bad usage (an unknown command or flag, a
 missing required flag).
+
+# run
+
+	scaleplan run [STUDY ...] [--out DIR] [--format png|svg|pdf] [--json] [--max-points N]
+
+Each STUDY is an .xlsx workbook or a folder of .csv sheets (the layout is in
+the README); with none, the built-in scenarios run. Studies run in
+parallel. For each, the output folder (default scaleplan-out) receives
+NAME.xlsx, NAME.memo.md and the feasibility maps; a short table per study
+is printed, or with --json the same as data (keys study, convention,
+strategies: name, technique, feasible, reason, best: window with the limit
+at each edge, recommended_kL, recommended_scale, model_length_m, cost).
+Outputs are written to a hidden staging folder and moved into place when
+complete, so an interrupt leaves nothing half-written; an output folder
+that would hold an input is refused. A sweep larger than max_points
+(1e8 by default) is refused; --max-points raises the bound.
+
+# init and check
+
+	scaleplan init FILE [--scenario NAME]
+	scaleplan init FILE --synthetic POINTSxAXISxCANDIDATESxSTRATEGIES
+	scaleplan check STUDY
+
+init writes a filled study (a workbook when FILE ends in .xlsx, otherwise a
+folder of .csv sheets) and never writes over a file. check loads a study
+and reports every problem at once, each with its sheet and cell, and exits
+1 if there is any. The scenarios:
+
+	$ scaleplan init --list
+
+# materials
+
+	scaleplan materials [NAME] [--at CONDITIONS] [--json]
+
+Without NAME, the library grouped by kind with the conditions each entry
+takes; with NAME, its properties in SI at the conditions (20C, 15C,35g/kg,
+3bar, 50% for a water–glycerol mass fraction), each with its source.
+
+	$ scaleplan materials water --at 20C
 
 # rules
 
