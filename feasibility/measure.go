@@ -1111,33 +1111,17 @@ func (p *exprParser) enter(pos int) error {
 }
 
 func (p *exprParser) parseSum() (*exprNode, error) {
-	left, err := p.parseProduct()
-	if err != nil {
-		return nil, err
-	}
-	for {
-		t, err := p.cur()
-		if err != nil {
-			return nil, err
-		}
-		if !t.isOp('+') && !t.isOp('-') {
-			return left, nil
-		}
-		p.advance()
-		right, err := p.parseProduct()
-		if err != nil {
-			return nil, err
-		}
-		op := opAdd
-		if t.op == '-' {
-			op = opSub
-		}
-		left = &exprNode{op: op, a: left, b: right}
-	}
+	return p.parseLeftAssoc(p.parseProduct, '+', opAdd, '-', opSub)
 }
 
 func (p *exprParser) parseProduct() (*exprNode, error) {
-	left, err := p.parseUnary()
+	return p.parseLeftAssoc(p.parseUnary, '*', opMul, '/', opDiv)
+}
+
+// parseLeftAssoc parses operands joined by two left-associative operators
+// of one precedence level.
+func (p *exprParser) parseLeftAssoc(next func() (*exprNode, error), c1 rune, op1 exprOp, c2 rune, op2 exprOp) (*exprNode, error) {
+	left, err := next()
 	if err != nil {
 		return nil, err
 	}
@@ -1146,17 +1130,17 @@ func (p *exprParser) parseProduct() (*exprNode, error) {
 		if err != nil {
 			return nil, err
 		}
-		if !t.isOp('*') && !t.isOp('/') {
+		if !t.isOp(c1) && !t.isOp(c2) {
 			return left, nil
 		}
 		p.advance()
-		right, err := p.parseUnary()
+		right, err := next()
 		if err != nil {
 			return nil, err
 		}
-		op := opMul
-		if t.op == '/' {
-			op = opDiv
+		op := op1
+		if t.isOp(c2) {
+			op = op2
 		}
 		left = &exprNode{op: op, a: left, b: right}
 	}

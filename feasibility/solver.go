@@ -231,30 +231,25 @@ func eliminate(rows []row, nq int) echelon {
 			r.c[k].Mul(r.c[k], inv)
 		}
 	}
-	for _, r := range rows {
-		reduce(r, e.pivots, e.pivotCol)
-		col := -1
-		for k := 0; k < nq; k++ {
+	// firstNonZero is the first column in [from, to) with a coefficient.
+	firstNonZero := func(r row, from, to int) int {
+		for k := from; k < to; k++ {
 			if r.c[k].Sign() != 0 {
-				col = k
-				break
+				return k
 			}
 		}
-		if col >= 0 {
+		return -1
+	}
+	for _, r := range rows {
+		reduce(r, e.pivots, e.pivotCol)
+		if col := firstNonZero(r, 0, nq); col >= 0 {
 			normalise(r, col)
 			e.pivots = append(e.pivots, r)
 			e.pivotCol = append(e.pivotCol, col)
 			continue
 		}
 		reduce(r, e.conditions, e.condCol)
-		col = -1
-		for k := nq; k < len(r.c); k++ {
-			if r.c[k].Sign() != 0 {
-				col = k
-				break
-			}
-		}
-		if col >= 0 {
+		if col := firstNonZero(r, nq, len(r.c)); col >= 0 {
 			normalise(r, col)
 			e.conditions = append(e.conditions, r)
 			e.condCol = append(e.condCol, col)

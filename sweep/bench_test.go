@@ -83,7 +83,11 @@ func BenchmarkSyntheticRun(b *testing.B) {
 }
 
 // BenchmarkScenarios runs every built-in scenario's sweep.
-func BenchmarkScenarios(b *testing.B) {
+func BenchmarkScenarios(b *testing.B) { benchScenarios(b, "") }
+
+// benchScenarios runs every built-in scenario, with the given number of
+// draws of its uncertain inputs ("" keeps the study's own).
+func benchScenarios(b *testing.B, samples string) {
 	list, err := Scenarios()
 	if err != nil {
 		b.Fatal(err)
@@ -94,6 +98,9 @@ func BenchmarkScenarios(b *testing.B) {
 			s, err := LoadScenario(sc.Name)
 			if err != nil {
 				b.Fatal(err)
+			}
+			if samples != "" {
+				s.Settings["samples"] = Setting{Name: "samples", Value: samples, Cell: Cell{"Study", 99, 2}}
 			}
 			lib, _ := materials.Default()
 			p, err := Prepare(s, lib, cat)
@@ -109,27 +116,4 @@ func BenchmarkScenarios(b *testing.B) {
 
 // BenchmarkScenariosRobust runs every built-in scenario with 10,000 draws
 // of its uncertain inputs; compare with BenchmarkScenarios.
-func BenchmarkScenariosRobust(b *testing.B) {
-	list, err := Scenarios()
-	if err != nil {
-		b.Fatal(err)
-	}
-	cat, _ := NewFacilityCatalog()
-	for i := 0; i < b.N; i++ {
-		for _, sc := range list {
-			s, err := LoadScenario(sc.Name)
-			if err != nil {
-				b.Fatal(err)
-			}
-			s.Settings["samples"] = Setting{Name: "samples", Value: "10000", Cell: Cell{"Study", 99, 2}}
-			lib, _ := materials.Default()
-			p, err := Prepare(s, lib, cat)
-			if err != nil {
-				b.Fatal(err)
-			}
-			if _, err := p.Run(context.Background()); err != nil {
-				b.Fatal(err)
-			}
-		}
-	}
-}
+func BenchmarkScenariosRobust(b *testing.B) { benchScenarios(b, "10000") }
