@@ -31,8 +31,9 @@ Every command takes --help. Commands whose output is data take --json.
 
 Exit status: 0 on success (also when a request turns out infeasible: that
 is a result), 1 on bad input (an unknown name, a malformed value, an
-inconsistent request), 2 on bad usage (an unknown command or flag, a
-missing required flag).
+inconsistent request) and when a run is interrupted (Ctrl-C: the studies
+already written stay, nothing half-written is left), 2 on bad usage (an
+unknown command or flag, a missing required flag or flag value).
 
 # run
 
