@@ -33,6 +33,16 @@ type ContourMap struct {
 	// dimensionless); YLog is set for a log-spaced axis.
 	Axis, Unit string
 	YLog       bool
+	// Iso are the study's measures drawn as iso-lines (dotted), each with
+	// log10 of its value on the same points as Z and the values drawn.
+	Iso []IsoMeasure
+}
+
+// IsoMeasure is a study measure over the contour map.
+type IsoMeasure struct {
+	Name, Unit string
+	LogZ       [][]float64 // log10 of the measure, Z's shape
+	Levels     []float64   // values (not logs) of the iso-lines
 }
 
 // ContourData returns the contour map of a strategy, or nil when it has no
@@ -117,6 +127,54 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 			cm.Levels = append(cm.Levels, e)
 		}
 	}
+	names := make([]string, 0, len(pickC.AxisMeasures))
+	for n := range pickC.AxisMeasures {
+		names = append(names, n)
+	}
+	sort.Strings(names)
+	units := map[string]string{}
+	for _, m := range p.Measures {
+		units[m.Name] = m.Unit.Text
+	}
+	for _, n := range names {
+		rows := pickC.AxisMeasures[n]
+		if len(rows) != len(p.AxisValues) {
+			continue
+		}
+		im := IsoMeasure{Name: n, Unit: units[n], LogZ: make([][]float64, len(yi))}
+		mlo, mhi := math.Inf(1), math.Inf(-1)
+		for j, yj := range yi {
+			im.LogZ[j] = make([]float64, len(xi))
+			for i, xk := range xi {
+				v := rows[yj][xk]
+				if v > 0 && !math.IsInf(v, 0) {
+					im.LogZ[j][i] = math.Log10(v)
+					mlo, mhi = math.Min(mlo, im.LogZ[j][i]), math.Max(mhi, im.LogZ[j][i])
+				} else {
+					im.LogZ[j][i] = math.NaN()
+				}
+			}
+		}
+		// Iso-lines at 1, 2 and 5 times the powers of ten inside the range,
+		// at most three of them.
+		for d := math.Floor(mlo); d <= math.Ceil(mhi); d++ {
+			for _, k := range []float64{1, 2, 5} {
+				if l := d + math.Log10(k); l > mlo && l < mhi {
+					im.Levels = append(im.Levels, math.Pow(10, l))
+				}
+			}
+		}
+		for len(im.Levels) > 3 {
+			var kept []float64
+			for i := 0; i < len(im.Levels); i += 2 {
+				kept = append(kept, im.Levels[i])
+			}
+			im.Levels = kept
+		}
+		if len(im.Levels) > 0 {
+			cm.Iso = append(cm.Iso, im)
+		}
+	}
 	return cm
 }
 
@@ -177,6 +235,9 @@ const (
 func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
 	title := fmt.Sprintf("%s: %s, margin over scale and %s\n%s; bold line: margin 0, the edge of the feasible region; dot: recommended point",
 		res.Name, cm.Strategy, cm.Axis, clip(cm.Label, 80))
+	if len(cm.Iso) > 0 {
+		title += "\ndotted: iso-lines of the study's measures at model scale, each labelled with its value"
+	}
 	p := newPlot(title, cm.X[0], cm.X[len(cm.X)-1])
 	p.Y.Label.Text = cm.Axis
 	if cm.Unit == "k = prototype/model" {
@@ -298,6 +359,22 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 	}
 	for _, line := range isolines(u, v, z, 0) {
 		c.StrokeLines(bold, toCanvas(line))
+	}
+	// Iso-lines of the study's measures, dotted, labelled at their middle.
+	isoSty := draw.LineStyle{Color: color.NRGBA{0x20, 0x20, 0x20, 0xFF}, Width: 1, Dashes: []vg.Length{1.5, 2.5}}
+	lab := textStyle(7, color.NRGBA{0x20, 0x20, 0x20, 0xFF})
+	for _, im := range cm.Iso {
+		for _, lvl := range im.Levels {
+			for _, line := range isolines(u, v, im.LogZ, math.Log10(lvl)) {
+				pts := toCanvas(line)
+				if len(pts) < 2 {
+					continue
+				}
+				c.StrokeLines(isoSty, pts)
+				mid := pts[len(pts)/2]
+				c.FillText(lab, mid, fmt.Sprintf("%s %s %s", im.Name, plainNumber(lvl), im.Unit))
+			}
+		}
 	}
 	if k, a := cm.Combo.Recommended, cm.Combo.Axis; !math.IsNaN(k) && !math.IsNaN(a) {
 		pt := vg.Point{X: trX(k), Y: trY(a)}

@@ -2,6 +2,7 @@ package report
 
 import (
 	"context"
+	"math"
 	"testing"
 
 	"scaleplan/materials"
@@ -55,6 +56,42 @@ func TestRequirementData(t *testing.T) {
 				if c.Needed[i] != want.Values[i] {
 					t.Errorf("%s at %d: %v, sweep %v", rs.Capability, i, c.Needed[i], want.Values[i])
 				}
+			}
+		}
+	}
+}
+
+// TestContourIsoLines: the iso-lines drawn on the conductor's contour map
+// come from the study's measures, at values inside their range on the map.
+func TestContourIsoLines(t *testing.T) {
+	s, err := sweep.LoadScenario("conductor")
+	if err != nil {
+		t.Fatal(err)
+	}
+	lib, _ := materials.Default()
+	cat, _ := sweep.NewFacilityCatalog()
+	p, err := sweep.Prepare(s, lib, cat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := p.Run(context.Background())
+	if err != nil {
+		t.Fatal(err)
+	}
+	cm := ContourData(res, res.Strategies[0])
+	if cm == nil || len(cm.Iso) != len(p.Measures) {
+		t.Fatalf("contour map %v with %d measures, want one iso set per measure (%d)", cm != nil, len(cm.Iso), len(p.Measures))
+	}
+	for _, im := range cm.Iso {
+		lo, hi := math.Inf(1), math.Inf(-1)
+		for _, row := range im.LogZ {
+			for _, v := range row {
+				lo, hi = math.Min(lo, v), math.Max(hi, v)
+			}
+		}
+		for _, l := range im.Levels {
+			if lg := math.Log10(l); lg <= lo || lg >= hi {
+				t.Errorf("%s: iso-line %v outside the map's range %v–%v", im.Name, l, math.Pow(10, lo), math.Pow(10, hi))
 			}
 		}
 	}

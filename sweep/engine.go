@@ -88,7 +88,10 @@ type ComboResult struct {
 	Limiting    []int
 	AxisMargins [][]float64
 	AxisWindows []Window
-	Err         string
+	// AxisMeasures holds, with a second axis, each study measure at model
+	// scale over the grid, one row per axis value (in the measure's unit).
+	AxisMeasures map[string][][]float64
+	Err          string
 }
 
 // LimitInfo describes a limit applied to a combination.
@@ -266,6 +269,12 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 		if len(axes) > 1 {
 			r.AxisMargins = append(r.AxisMargins, out.margins)
 			r.AxisWindows = append(r.AxisWindows, out.window)
+			for _, m := range p.Measures {
+				if r.AxisMeasures == nil {
+					r.AxisMeasures = map[string][][]float64{}
+				}
+				r.AxisMeasures[m.Name] = append(r.AxisMeasures[m.Name], x.measureGrid(m, us))
+			}
 		}
 		if best == nil || better(out.window, best.window) {
 			best, bestI = out, i
@@ -1018,4 +1027,26 @@ func (x *combo) poissonNote() string {
 		return fmt.Sprintf("Poisson's ratio of %s (%.3g) differs from the prototype's (%.3g) by %.0f %%: transverse deformation is not similar; relax it (relax: poisson) or choose a material closer in Poisson's ratio", x.material.Name, pm.Value, pp, 100*d)
 	}
 	return ""
+}
+
+// measureGrid evaluates a study measure over the grid (NaN where a name
+// does not resolve).
+func (x *combo) measureGrid(m *PlanMeasure, us []float64) []float64 {
+	out := make([]float64, len(us))
+	forms := map[string]linForm{}
+	for _, n := range m.Expr.Names() {
+		f, err := x.form(n)
+		if err != nil {
+			for i := range out {
+				out[i] = math.NaN()
+			}
+			return out
+		}
+		forms[n] = f
+	}
+	for i, u := range us {
+		ln := u * math.Ln10
+		out[i] = m.Expr.Eval(func(n string) float64 { return forms[n].at(ln) }) / m.Unit.Factor
+	}
+	return out
 }
