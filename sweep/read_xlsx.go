@@ -140,6 +140,12 @@ func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 // readXLSXSheet reads one worksheet.
 func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, r *sheetReader) {
 	issues, err := scanSheet(part, len(r.cols), nStrings)
+	if errors.Is(err, errTooWide) {
+		for _, is := range issues {
+			r.add(is.at.in(r.sheet), "%s", is.msg)
+		}
+		return
+	}
 	if err != nil {
 		r.add(Cell{Sheet: r.sheet}, "the sheet is damaged (%v): save the workbook again from a spreadsheet program", err)
 		return
@@ -208,6 +214,16 @@ type cellIssue struct {
 // that does not exist (nStrings is the number of shared strings). At most
 // maxSheetProblems are returned.
 func scanSheet(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
+	return scanSheetCells(part, cols, nStrings)
+}
+
+// MaxColumns is the widest a study sheet may be: its own columns and room
+// for the user's notes to the right.
+const MaxColumns = 256
+
+var errTooWide = errors.New("sheet too wide")
+
+func scanSheetCells(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
 	rc, err := part.Open()
 	if err != nil {
 		return nil, err
@@ -246,6 +262,12 @@ func scanSheet(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
 					if c, rr, err := excelize.CellNameToCoordinates(r); err == nil {
 						col, row = c, rr
 					}
+				}
+				if col > MaxColumns {
+					// Reading such rows costs time in proportion to the
+					// column; refuse the sheet instead.
+					cell, _ := excelize.CoordinatesToCellName(min(col, excelize.MaxColumns), max(row, 1))
+					return append(found, cellIssue{place{row, 0}, fmt.Sprintf("the sheet has a cell at %s, beyond column %s: a study sheet uses its first %d columns; delete the cells far to the right", cell, ColumnLetters(MaxColumns), len(Columns["Strategies"]))}), errTooWide
 				}
 				inCell, hasF, hasV, typ, value = true, false, false, attr(t, "t"), ""
 			case "f":

@@ -390,7 +390,7 @@ func hostileCases() []hostileCase {
 			part := hSheetPart(t, parts, "Prototype")
 			far := `<row r="1048576"><c r="A1048576" t="inlineStr"><is><t>far_item</t></is></c><c r="XFD1048576" t="inlineStr"><is><t>far away</t></is></c></row></sheetData>`
 			hReplacePart(t, s, part, bytes.Replace(parts[part], []byte("</sheetData>"), []byte(far), 1), 0)
-		}), 1, "Prototype!1048576", "more than 100000 rows"},
+		}), 1, "Prototype!1048576", "beyond column IV"},
 		{"enormous cell", xlsxCase(setCell("Study", "B3", strings.Repeat("purpose ", 2000))), 1, "Study!B3", "the cell holds 15999 characters; a study cell holds at most 10000"},
 		{"formula without a cached value", xlsxCase(func(t *testing.T, s string) {
 			hReplaceCell(t, s, "Prototype", "B2", `<c r="B2"><f>20+8</f></c>`)
