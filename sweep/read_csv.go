@@ -67,6 +67,13 @@ func loadCSV(fsys fs.FS, dir, source, base string) (*Study, error) {
 // the file), and a quoted cell that runs over several lines and holds a
 // stray quote (a closing quote is probably missing).
 func readCSVSheet(f io.Reader, name string, r *sheetReader) {
+	// A file that says it is too large is refused before it is read.
+	if st, ok := f.(interface{ Stat() (fs.FileInfo, error) }); ok {
+		if fi, err := st.Stat(); err == nil && fi.Size() > maxFileBytes {
+			r.add(Cell{Sheet: r.sheet}, "%s is larger than %d MiB; a study sheet is far smaller", name, maxFileBytes>>20)
+			return
+		}
+	}
 	raw, err := io.ReadAll(io.LimitReader(f, maxFileBytes+1))
 	if err != nil {
 		r.add(Cell{Sheet: r.sheet}, "cannot read %s: %v", name, err)
