@@ -7,6 +7,7 @@ import (
 	"sort"
 	"strings"
 
+	"scaleplan/feasibility"
 	"scaleplan/sweep"
 )
 
@@ -121,15 +122,29 @@ func Memo(res *sweep.Result) string {
 			}
 		}
 		b.WriteString("\n## Prediction rules\n\n")
-		b.WriteString("A model measurement times the multiplier gives the prototype value.\n\n| quantity | scale law | multiplier |\n|---|---|---|\n")
-		sol := caseSolution(recS, rec)
-		keys := make([]string, 0, len(rec.Factors))
-		for q := range rec.Factors {
-			keys = append(keys, q)
-		}
-		sort.Strings(keys)
-		for _, q := range keys {
-			fmt.Fprintf(b, "| %s | %s | %s |\n", q, md(sol.LawString(q)), Num3(rec.Factors[q]))
+		b.WriteString("A model measurement times the multiplier gives the prototype value.\n")
+		if rec.Factors != nil {
+			predictionTable(b, caseSolution(recS, rec), rec.Factors)
+		} else {
+			// A joint window: one table per case, at the joint scale.
+			for _, cs := range recS.Cases {
+				for _, c := range recS.Combos {
+					if c.Case != cs.Case || c.Facility != rec.Facility || !c.Window.Contains(rec.Recommended) || c.Params == nil {
+						continue
+					}
+					v := feasibility.Values{"length": rec.Recommended}
+					for k, x := range c.Params {
+						v[k] = x
+					}
+					f, err := cs.Solution.Factors(v)
+					if err != nil {
+						continue
+					}
+					fmt.Fprintf(b, "\nCase %s (%s), at %s:\n", cs.Case, Candidate(c), sweep.Scale(rec.Recommended))
+					predictionTable(b, cs.Solution, f)
+					break
+				}
+			}
 		}
 	}
 	b.WriteString("\n## Cautions\n\n")
@@ -193,4 +208,17 @@ func limitingCapability(res *sweep.Result, c *sweep.ComboResult) string {
 		return s
 	}
 	return fmt.Sprintf("**Facility.** The largest model is limited by %q, not by a capability of %s.", edge, c.Facility)
+}
+
+// predictionTable writes the prediction rules of a solution.
+func predictionTable(b *strings.Builder, sol interface{ LawString(string) string }, factors map[string]float64) {
+	b.WriteString("\n| quantity | scale law | multiplier |\n|---|---|---|\n")
+	keys := make([]string, 0, len(factors))
+	for q := range factors {
+		keys = append(keys, q)
+	}
+	sort.Strings(keys)
+	for _, q := range keys {
+		fmt.Fprintf(b, "| %s | %s | %s |\n", q, md(sol.LawString(q)), Num3(factors[q]))
+	}
 }

@@ -80,6 +80,9 @@ type ComboResult struct {
 	// Factors holds the scale factor k of every quantity the strategy
 	// sets, at the recommended scale: the prediction rules.
 	Factors map[string]float64
+	// Params holds the scale factors of the solution's parameters other
+	// than the length scale (given properties, fixed free choices).
+	Params feasibility.Values
 	// Margins holds the margin of every grid point (decades) and Limiting
 	// the index into Limits of the limit that gives it (-1 for a
 	// similarity condition); with a second axis, AxisMargins holds one
@@ -786,6 +789,10 @@ func (o *sweepOut) fill(r *ComboResult) {
 	v := feasibility.Values{}
 	for k, val := range x.values {
 		v[k] = val
+	}
+	r.Params = feasibility.Values{}
+	for k, val := range x.values {
+		r.Params[k] = val
 	}
 	v["length"] = r.Recommended
 	if f, err := sol.Factors(v); err == nil {
