@@ -6,7 +6,6 @@ import (
 	"strings"
 	"sync/atomic"
 	"testing"
-	"time"
 )
 
 // tugJob is a job running the tug scenario with its points changed (when
@@ -79,11 +78,7 @@ func TestRunBatchCancelled(t *testing.T) {
 		j.Load = func() (*Study, error) { loaded.Add(1); return load() }
 		jobs = append(jobs, j)
 	}
-	start := time.Now()
 	out := RunBatch(ctx, jobs, cat)
-	if d := time.Since(start); d > 5*time.Second {
-		t.Errorf("a cancelled batch took %v", d)
-	}
 	for _, o := range out {
 		if !errors.Is(o.Err, context.Canceled) || o.Result != nil {
 			t.Errorf("%s: %v %v", o.Name, o.Err, o.Result)
