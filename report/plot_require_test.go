@@ -96,3 +96,32 @@ func TestContourIsoLines(t *testing.T) {
 		}
 	}
 }
+
+// TestJointScaleLaws: for a special-cases strategy recommended at a joint
+// scale, the prediction rules of each case are given at that scale (the
+// sand case's force multiplier is kL³, the clay case's kL²).
+func TestJointScaleLaws(t *testing.T) {
+	s, err := sweep.LoadScenario("tine")
+	if err != nil {
+		t.Fatal(err)
+	}
+	lib, _ := materials.Default()
+	cat, _ := sweep.NewFacilityCatalog()
+	p, err := sweep.Prepare(s, lib, cat)
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := p.Run(context.Background())
+	if err != nil {
+		t.Fatal(err)
+	}
+	sr := res.Strategies[0]
+	kL := sr.Best.Recommended
+	want := map[string]float64{"dry sand": math.Pow(kL, 3), "soft clay": kL * kL}
+	for _, cs := range sr.Cases {
+		f, _ := CaseFactors(sr, cs, sr.Best)
+		if f == nil || math.Abs(f["force"]/want[cs.Case]-1) > 1e-9 {
+			t.Errorf("case %s: force multiplier %v, want %v", cs.Case, f["force"], want[cs.Case])
+		}
+	}
+}

@@ -384,16 +384,13 @@ func writeLaws(f *excelize.File, res *sweep.Result, bold int) error {
 	for _, sr := range res.Strategies {
 		for _, c := range sr.Cases {
 			sol := c.Solution
-			var values map[string]float64
-			if b := sr.Best; b != nil && !math.IsNaN(b.Recommended) {
-				values = b.Factors
-			}
+			values, _ := CaseFactors(sr, c, sr.Best)
 			for _, l := range sol.Laws {
 				if l.Status.String() == "unset" {
 					continue
 				}
 				k := math.NaN()
-				if v, ok := values[l.Quantity]; ok && (sr.Best.Case == c.Case || len(sr.Cases) == 1) {
+				if v, ok := values[l.Quantity]; ok {
 					k = v
 				}
 				if err := s.add(sr.Name, c.Case, l.Quantity, unitOf(l.Quantity), sol.LawString(l.Quantity), sig(k), sig(k)); err != nil {
