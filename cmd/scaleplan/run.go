@@ -67,9 +67,6 @@ func runCommand() *cli.Command {
 			if err := refuseRepeatedInputs(inputs); err != nil {
 				return err
 			}
-			if err := os.MkdirAll(out, 0o755); err != nil {
-				return fmt.Errorf("output folder %s: %v", out, err)
-			}
 			// An interrupt cancels ctx: the batch stops, and no output is
 			// written after it (WriteStudy leaves no partial file).
 			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
@@ -84,10 +81,19 @@ func runCommand() *cli.Command {
 			var data []any
 			var failed []string
 			written := 0
+			made := false
 			for _, o := range outcomes {
 				if o.Err != nil {
 					failed = append(failed, fmt.Sprintf("%s:\n%s", o.Name, indent(o.Err.Error())))
 					continue
+				}
+				// The output folder is made only when there is something
+				// to put in it.
+				if !made {
+					if err := os.MkdirAll(out, 0o755); err != nil {
+						return fmt.Errorf("output folder %s: %v", out, err)
+					}
+					made = true
 				}
 				files, err := report.WriteStudy(ctx, out, o.Result, format)
 				if err != nil {

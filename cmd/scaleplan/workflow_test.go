@@ -104,3 +104,22 @@ func TestRunDemo(t *testing.T) {
 		t.Errorf("tug window missing from the table:\n%s", text)
 	}
 }
+
+// TestNoOutputFolderWhenAllFail: a run whose studies all have problems
+// leaves no output folder behind.
+func TestNoOutputFolderWhenAllFail(t *testing.T) {
+	dir := t.TempDir()
+	bad := filepath.Join(dir, "bad")
+	mustRun(t, 0, "init", bad, "--scenario", "tug")
+	if err := os.Remove(filepath.Join(bad, "Strategies.csv")); err != nil {
+		t.Fatal(err)
+	}
+	out := filepath.Join(dir, "out")
+	var stdout, stderr bytes.Buffer
+	if code := run([]string{"scaleplan", "run", bad, "--out", out}, &stdout, &stderr); code != 1 {
+		t.Fatalf("exit %d, want 1: %s", code, stderr.String())
+	}
+	if _, err := os.Stat(out); !os.IsNotExist(err) {
+		t.Errorf("output folder made although nothing was written (%v)", err)
+	}
+}
