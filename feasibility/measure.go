@@ -678,6 +678,16 @@ func (n *exprNode) eval(v func(string) float64) float64 {
 
 var half = Rat{1, 2}
 
+// operandDims returns the dimensions of a binary node's two operands.
+func (n *exprNode) operandDims(dimOf func(string) (Dimension, error), cache map[string]Dimension, root *exprNode) (Dimension, Dimension, error) {
+	da, err := n.a.dim(dimOf, cache, root)
+	if err != nil {
+		return Dimension{}, Dimension{}, err
+	}
+	db, err := n.b.dim(dimOf, cache, root)
+	return da, db, err
+}
+
 func (n *exprNode) dim(dimOf func(string) (Dimension, error), cache map[string]Dimension, root *exprNode) (Dimension, error) {
 	where := func() string {
 		if n == root {
@@ -710,11 +720,7 @@ func (n *exprNode) dim(dimOf func(string) (Dimension, error), cache map[string]D
 	case opNeg:
 		return n.a.dim(dimOf, cache, root)
 	case opAdd, opSub:
-		da, err := n.a.dim(dimOf, cache, root)
-		if err != nil {
-			return Dimension{}, err
-		}
-		db, err := n.b.dim(dimOf, cache, root)
+		da, db, err := n.operandDims(dimOf, cache, root)
 		if err != nil {
 			return Dimension{}, err
 		}
@@ -726,11 +732,7 @@ func (n *exprNode) dim(dimOf func(string) (Dimension, error), cache map[string]D
 		}
 		return da, nil
 	case opMul, opDiv:
-		da, err := n.a.dim(dimOf, cache, root)
-		if err != nil {
-			return Dimension{}, err
-		}
-		db, err := n.b.dim(dimOf, cache, root)
+		da, db, err := n.operandDims(dimOf, cache, root)
 		if err != nil {
 			return Dimension{}, err
 		}

@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"strings"
@@ -43,11 +42,7 @@ func NewGroupsReport(vars []feasibility.Variable, res feasibility.PiResult) *Gro
 }
 
 // WriteJSON writes the report as indented JSON.
-func (r *GroupsReport) WriteJSON(w io.Writer) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(r)
-}
+func (r *GroupsReport) WriteJSON(w io.Writer) error { return writeJSON(w, r) }
 
 // WriteText writes the report as a readable table.
 func (r *GroupsReport) WriteText(w io.Writer) error {

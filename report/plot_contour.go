@@ -508,36 +508,27 @@ func isolines(u, v []float64, z [][]float64, level float64) [][]contourPoint {
 			continue
 		}
 		used[k] = true
-		fwd := []int{segs[k].a, segs[k].b}
-		for cur, e := k, segs[k].b; ; {
-			n, ok := next(e, cur)
-			if !ok {
-				break
+		// walk follows the segments joined end to end from edge e of
+		// segment k and returns the edges it passes.
+		walk := func(e int) []int {
+			var out []int
+			for cur := k; ; {
+				n, ok := next(e, cur)
+				if !ok {
+					return out
+				}
+				used[n] = true
+				if segs[n].a == e {
+					e = segs[n].b
+				} else {
+					e = segs[n].a
+				}
+				out = append(out, e)
+				cur = n
 			}
-			used[n] = true
-			if segs[n].a == e {
-				e = segs[n].b
-			} else {
-				e = segs[n].a
-			}
-			fwd = append(fwd, e)
-			cur = n
 		}
-		var back []int
-		for cur, e := k, segs[k].a; ; {
-			n, ok := next(e, cur)
-			if !ok {
-				break
-			}
-			used[n] = true
-			if segs[n].a == e {
-				e = segs[n].b
-			} else {
-				e = segs[n].a
-			}
-			back = append(back, e)
-			cur = n
-		}
+		fwd := append([]int{segs[k].a, segs[k].b}, walk(segs[k].b)...)
+		back := walk(segs[k].a)
 		ids := make([]int, 0, len(back)+len(fwd))
 		for b := len(back) - 1; b >= 0; b-- {
 			ids = append(ids, back[b])

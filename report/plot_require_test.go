@@ -9,11 +9,10 @@ import (
 	"scaleplan/sweep"
 )
 
-// TestRequirementData checks the series behind the requirement plots
-// against the sweep's requirements: only capabilities that set a window
-// edge, with the values the sweep computed and each facility's own value.
-func TestRequirementData(t *testing.T) {
-	s, err := sweep.LoadScenario("tug")
+// scenarioResult runs a built-in scenario.
+func scenarioResult(t *testing.T, name string) *sweep.Result {
+	t.Helper()
+	s, err := sweep.LoadScenario(name)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -27,6 +26,14 @@ func TestRequirementData(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
+	return res
+}
+
+// TestRequirementData checks the series behind the requirement plots
+// against the sweep's requirements: only capabilities that set a window
+// edge, with the values the sweep computed and each facility's own value.
+func TestRequirementData(t *testing.T) {
+	res := scenarioResult(t, "tug")
 	var sr *sweep.StrategyResult
 	for _, x := range res.Strategies {
 		if x.Name == "Froude scaling" {
@@ -64,20 +71,8 @@ func TestRequirementData(t *testing.T) {
 // TestContourIsoLines: the iso-lines drawn on the conductor's contour map
 // come from the study's measures, at values inside their range on the map.
 func TestContourIsoLines(t *testing.T) {
-	s, err := sweep.LoadScenario("conductor")
-	if err != nil {
-		t.Fatal(err)
-	}
-	lib, _ := materials.Default()
-	cat, _ := sweep.NewFacilityCatalog()
-	p, err := sweep.Prepare(s, lib, cat)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := p.Run(context.Background())
-	if err != nil {
-		t.Fatal(err)
-	}
+	res := scenarioResult(t, "conductor")
+	p := res.Plan
 	cm := ContourData(res, res.Strategies[0])
 	if cm == nil || len(cm.Iso) != len(p.Measures) {
 		t.Fatalf("contour map %v with %d measures, want one iso set per measure (%d)", cm != nil, len(cm.Iso), len(p.Measures))
@@ -101,20 +96,7 @@ func TestContourIsoLines(t *testing.T) {
 // scale, the prediction rules of each case are given at that scale (the
 // sand case's force multiplier is kL³, the clay case's kL²).
 func TestJointScaleLaws(t *testing.T) {
-	s, err := sweep.LoadScenario("tine")
-	if err != nil {
-		t.Fatal(err)
-	}
-	lib, _ := materials.Default()
-	cat, _ := sweep.NewFacilityCatalog()
-	p, err := sweep.Prepare(s, lib, cat)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := p.Run(context.Background())
-	if err != nil {
-		t.Fatal(err)
-	}
+	res := scenarioResult(t, "tine")
 	sr := res.Strategies[0]
 	kL := sr.Best.Recommended
 	want := map[string]float64{"dry sand": math.Pow(kL, 3), "soft clay": kL * kL}

@@ -143,10 +143,13 @@ func nonNil(s []string) []string {
 }
 
 // WriteJSON writes the report as indented JSON.
-func (r *RulesReport) WriteJSON(w io.Writer) error {
+func (r *RulesReport) WriteJSON(w io.Writer) error { return writeJSON(w, r) }
+
+// writeJSON writes any data the commands print as indented JSON.
+func writeJSON(w io.Writer, v any) error {
 	enc := json.NewEncoder(w)
 	enc.SetIndent("", "  ")
-	return enc.Encode(r)
+	return enc.Encode(v)
 }
 
 // WriteText writes the report as readable tables.

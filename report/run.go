@@ -1,7 +1,6 @@
 package report
 
 import (
-	"encoding/json"
 	"fmt"
 	"io"
 	"math"
@@ -184,8 +183,4 @@ func RunData(res *sweep.Result, outputs []string) any {
 }
 
 // WriteRunJSON writes the results of a batch as a JSON array.
-func WriteRunJSON(w io.Writer, data []any) error {
-	enc := json.NewEncoder(w)
-	enc.SetIndent("", "  ")
-	return enc.Encode(data)
-}
+func WriteRunJSON(w io.Writer, data []any) error { return writeJSON(w, data) }

@@ -9,8 +9,8 @@ import (
 	"scaleplan/materials"
 )
 
-// runStudy prepares and runs a study with a fresh library.
-func runStudy(t *testing.T, s *Study) *Result {
+// prepare checks a study against a fresh library and the catalogue.
+func prepare(t *testing.T, s *Study) (*Plan, error) {
 	t.Helper()
 	lib, err := materials.Default()
 	if err != nil {
@@ -20,7 +20,13 @@ func runStudy(t *testing.T, s *Study) *Result {
 	if err != nil {
 		t.Fatal(err)
 	}
-	plan, err := Prepare(s, lib, cat)
+	return Prepare(s, lib, cat)
+}
+
+// runStudy prepares and runs a study with a fresh library.
+func runStudy(t *testing.T, s *Study) *Result {
+	t.Helper()
+	plan, err := prepare(t, s)
 	if err != nil {
 		t.Fatalf("Prepare: %v", err)
 	}

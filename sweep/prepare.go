@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"fmt"
 	"math"
 	"slices"
 	"sort"
@@ -802,17 +803,10 @@ func (p *Plan) prepareCosts(ps *Problems) {
 		if f == nil && len(p.Facilities) > 0 {
 			targets = p.Facilities
 		}
-		for _, t := range targets {
-			d, err := e.Dim(p.dimResolver(t))
-			if err != nil {
-				ps.Add(At("Costs", r.Row, "measure"), "%v", err)
-				break
-			}
-			if !d.Equal(c.Per.Dim) {
-				ps.Add(At("Costs", r.Row, "per"), "the measure has dimension %s but per is %q (%s)", d, r.Per, c.Per.Dim)
-				break
-			}
-		}
+		p.checkDim(ps, e, targets, c.Per.Dim, At("Costs", r.Row, "measure"), At("Costs", r.Row, "per"),
+			func(d feasibility.Dimension) string {
+				return fmt.Sprintf("the measure has dimension %s but per is %q (%s)", d, r.Per, c.Per.Dim)
+			})
 		p.Costs = append(p.Costs, c)
 	}
 }
@@ -886,17 +880,27 @@ func (p *Plan) prepareMeasures(ps *Problems) {
 		if len(targets) == 0 {
 			targets = []*Facility{nil}
 		}
-		for _, f := range targets {
-			d, err := e.Dim(p.dimResolver(f))
-			if err != nil {
-				ps.Add(At("Measures", r.Row, "expression"), "%v", err)
-				break
-			}
-			if !d.Equal(m.Unit.Dim) {
-				ps.Add(At("Measures", r.Row, "unit"), "the measure has dimension %s but the unit %q is %s", d, r.Unit, m.Unit.Dim)
-				break
-			}
-		}
+		p.checkDim(ps, e, targets, m.Unit.Dim, At("Measures", r.Row, "expression"), At("Measures", r.Row, "unit"),
+			func(d feasibility.Dimension) string {
+				return fmt.Sprintf("the measure has dimension %s but the unit %q is %s", d, r.Unit, m.Unit.Dim)
+			})
 		p.Measures = append(p.Measures, m)
+	}
+}
+
+// checkDim dimension-checks a measure for every facility it may be
+// evaluated with: a name it cannot resolve is reported at exprCell, a
+// dimension other than want at unitCell (one problem at most).
+func (p *Plan) checkDim(ps *Problems, e *feasibility.Expr, targets []*Facility, want feasibility.Dimension, exprCell, unitCell Cell, mismatch func(feasibility.Dimension) string) {
+	for _, f := range targets {
+		d, err := e.Dim(p.dimResolver(f))
+		if err != nil {
+			ps.Add(exprCell, "%v", err)
+			return
+		}
+		if !d.Equal(want) {
+			ps.Add(unitCell, "%s", mismatch(d))
+			return
+		}
 	}
 }

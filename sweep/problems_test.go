@@ -5,21 +5,11 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
-
-	"scaleplan/materials"
 )
 
 func prepareErr(t *testing.T, s *Study) string {
 	t.Helper()
-	lib, err := materials.Default()
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat, err := NewFacilityCatalog()
-	if err != nil {
-		t.Fatal(err)
-	}
-	_, err = Prepare(s, lib, cat)
+	_, err := prepare(t, s)
 	if err == nil {
 		return ""
 	}
