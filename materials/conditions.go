@@ -158,7 +158,9 @@ func num(v float64) string {
 //
 // Keys (case-insensitive): T, temp, temperature; p, pressure; S, salinity;
 // w, mass_fraction, glycerol. With a key, a bare salinity number is read in
-// g/kg (S=35) and a bare mass fraction as a fraction (w=0.5); temperature
+// g/kg (S=35), and a bare salinity between 0 and 1 (S=0.035, a fraction
+// written without its unit) is refused with the ways to write it; a bare
+// mass fraction is a fraction (w=0.5); temperature
 // and pressure always need a unit. Salinity and mass fraction are told apart
 // by their unit without a key: g/kg and ‰ mean salinity, % means the
 // glycerol mass fraction; any other dimensionless value needs its key.
@@ -231,6 +233,10 @@ func parseCondition(part string) (Condition, float64, error) {
 			return "", 0, fmt.Errorf("give the absolute pressure with its unit, e.g. p=3bar or p=101325Pa")
 		case (k == Salinity || k == MassFraction) && !u.Dim.IsDimensionless():
 			return "", 0, fmt.Errorf("%s is dimensionless (unit %q is not)", k, u.Text)
+		case k == Salinity && bare && v > 0 && v < 1:
+			// S=0.035 is a fraction written without its unit, not 0.035 g/kg.
+			return "", 0, fmt.Errorf("S=%s: a bare salinity is read in g/kg, and %s g/kg is fresh water; for a fraction write S=%s%% or S=%sg/kg (or S=%sg/kg if you do mean grams per kilogram)",
+				num(v), num(v), num(v*100), num(v*1000), num(v))
 		case k == Salinity && bare:
 			v *= 1e-3 // S=35 means 35 g/kg
 		}
@@ -277,6 +283,9 @@ func checkCondition(k Condition, v float64) error {
 		}
 	case MassFraction:
 		if v < 0 || v > 1 {
+			if v > 1 && v <= 100 {
+				return fmt.Errorf("mass fraction %s is outside 0–1 (for %s %% write w=%s or w=%s%%)", num(v), num(v), num(v/100), num(v))
+			}
 			return fmt.Errorf("mass fraction %s is outside 0–1", num(v))
 		}
 	}

@@ -33,7 +33,7 @@ func propertyFiles() []struct {
 
 // stateModels are the entries computed from their state, by name.
 func stateModels() map[string]Entry {
-	return map[string]Entry{
+	m := map[string]Entry{
 		"water":          waterEntry(),
 		"seawater":       seawaterEntry(),
 		"air":            airGas().entry(),
@@ -41,7 +41,13 @@ func stateModels() map[string]Entry {
 		"helium":         heliumGas().entry(),
 		"carbon_dioxide": carbonDioxideGas().entry(),
 		"water_glycerol": glycerolEntry(),
+		"glycerol":       pureGlycerolEntry(),
+		"brine":          brineEntry(),
 	}
+	for _, g := range siliconeGrades() {
+		m[g.name] = g.entry()
+	}
+	return m
 }
 
 // readCSV reads a data file with the expected header; lines starting with

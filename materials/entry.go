@@ -16,7 +16,11 @@ type ConditionRange struct {
 	Default   float64 // SI
 	Min, Max  float64 // valid range, SI
 	Tunable   bool
-	Source    string // the formula whose validity sets the range
+	// Composition marks the mixture fraction of a mixture (glycerol mass
+	// fraction, brine salinity): a default for it is never silent, see
+	// Entry.Defaulted.
+	Composition bool
+	Source      string // the formula whose validity sets the range
 }
 
 // Entry is one material or medium of the library.
@@ -63,6 +67,11 @@ func (e Entry) Resolve(c Conditions) (Conditions, error) {
 		if len(e.Ranges) == 0 {
 			return Conditions{}, fmt.Errorf("%s: its properties are fixed (see their sources); it takes no conditions, got %s", e.Name, c)
 		}
+		if k == MassFraction && e.Takes(Salinity) {
+			v, _ := c.Get(k)
+			return Conditions{}, fmt.Errorf("%s: takes a salinity, not a glycerol mass fraction (a bare %s%% is read as w); write its salinity as S=%s%% or %sg/kg",
+				e.Name, num(v*100), num(v*100), num(v*1000))
+		}
 		return Conditions{}, fmt.Errorf("%s: does not depend on %s; it takes %s", e.Name, k, e.takesList())
 	}
 	return e.resolve(c)
@@ -97,6 +106,36 @@ func (e Entry) resolve(c Conditions) (Conditions, error) {
 		out = out.With(r.Condition, clamp(v, r.Min, r.Max))
 	}
 	return out, nil
+}
+
+// Defaulted lists the mixture fractions (Composition conditions) the
+// conditions leave to the entry's default: water_glycerol without w= is
+// taken at w = 0.5, brine without S= at 35 g/kg. Callers print the
+// default with the conditions (DefaultNote), so that a name never stands
+// silently for a mixture at a default fraction.
+func (e Entry) Defaulted(c Conditions) []Condition {
+	var out []Condition
+	for _, r := range e.Ranges {
+		if _, ok := c.Get(r.Condition); r.Composition && !ok {
+			out = append(out, r.Condition)
+		}
+	}
+	return out
+}
+
+// DefaultNote says which mixture fractions were taken by default, e.g.
+// "w = 0.5 by default: give w= for another mixture", or "" when none.
+func (e Entry) DefaultNote(c Conditions) string {
+	var parts []string
+	for _, k := range e.Defaulted(c) {
+		r, _ := e.rangeOf(k)
+		key := "w="
+		if k == Salinity {
+			key = "S="
+		}
+		parts = append(parts, fmt.Sprintf("%s by default: give %s for another mixture", FormatCondition(k, r.Default), key))
+	}
+	return strings.Join(parts, "; ")
 }
 
 func (e Entry) takesList() string {

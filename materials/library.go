@@ -4,8 +4,6 @@ import (
 	"fmt"
 	"sort"
 	"strings"
-
-	"scaleplan/feasibility"
 )
 
 // Library is a set of entries by name: the embedded data (Default) plus
@@ -41,38 +39,17 @@ func normalize(name string) string {
 	return strings.Join(f, "_")
 }
 
-// alias maps common other names to library names.
-func alias(key string) string {
-	switch key {
-	case "fresh_water", "freshwater":
-		return "water"
-	case "sea_water", "salt_water":
-		return "seawater"
-	case "glycerol", "glycerine", "glycerol_water", "water_glycerine":
-		return "water_glycerol"
-	case "co2":
-		return "carbon_dioxide"
-	case "n2":
-		return "nitrogen"
-	case "he":
-		return "helium"
-	}
-	return key
-}
-
 // Lookup finds an entry by name (case, spaces and hyphens do not matter;
-// a few aliases such as fresh_water and sea_water are known). An unknown
-// name is an error with a suggestion.
+// aliases of the same substance such as fresh water, perspex, glycerine
+// and "silicone oil 100 cSt" are known, see names.go). A word naming a
+// class (steel, sand, oil) is refused with its entries; an unknown name is
+// an error with a suggestion close in spelling and meaning.
 func (l *Library) Lookup(name string) (Entry, error) {
-	k := normalize(name)
-	e, ok := l.byKey[k]
-	if !ok {
-		e, ok = l.byKey[alias(k)]
+	k, err := l.lookupName(name, normalize(name))
+	if err != nil {
+		return Entry{}, err
 	}
-	if !ok {
-		return Entry{}, fmt.Errorf("unknown material or medium %q%s", name, feasibility.Suggest(k, l.Names()))
-	}
-	return e.clone(), nil
+	return l.byKey[k].clone(), nil
 }
 
 func (e Entry) clone() Entry {

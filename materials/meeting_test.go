@@ -14,9 +14,9 @@ func TestMeeting(t *testing.T) {
 		tuned    map[string]bool
 	}{
 		// Fresh water at 20 °C is 998.2 kg/m^3 (0.18 % off); the mixture
-		// reaches 1000 by its glycerol fraction.
-		{"water density", "density", 1000, 0.005, "20C", []string{"water_glycerol", "water"},
-			map[string]bool{"water_glycerol": true}},
+		// reaches 1000 by its glycerol fraction, brine by its salt.
+		{"water density", "density", 1000, 0.005, "20C", []string{"brine", "water_glycerol", "water"},
+			map[string]bool{"water_glycerol": true, "brine": true}},
 		// Model ice is tuned to 40 kPa; no other ice is near.
 		{"ice strength", "strength", 40e3, 0.1, "", []string{"model_ice"}, map[string]bool{"model_ice": true}},
 		// A density nothing has: none exists.
