@@ -182,6 +182,10 @@ var unitTable = map[string]unitDef{
 	"degF": {1 / 1.8, 0, dimTh, false, 459.67 / 1.8},
 	"F":    {1 / 1.8, 0, dimTh, false, 459.67 / 1.8},
 	"℉":    {1 / 1.8, 0, dimTh, false, 459.67 / 1.8},
+
+	// The knot spelled out, as people type it ("12 knots").
+	"knot":  {1852.0 / 3600, 0, Dim(0, 1, -1, 0), false, 0},
+	"knots": {1852.0 / 3600, 0, Dim(0, 1, -1, 0), false, 0},
 }
 
 // knownUnits is the list suggestions are drawn from, most common first (on

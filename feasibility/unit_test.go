@@ -48,6 +48,8 @@ func TestUnitFactorsNIST(t *testing.T) {
 		{"kn", 1852.0 / 3600, exact},                   // NIST SP 811 Table 9: knot = 1852/3600 m/s (exact)
 		{"kn", 5.144444e-01, sevenSF},                  // NIST SP 811 B.8: knot, 5.144 444 E-01 m/s
 		{"kt", 5.144444e-01, sevenSF},                  // same as kn (NIST SP 811 B.8)
+		{"knots", 1852.0 / 3600, exact},                // NIST SP 811 Table 9: knot = 1852/3600 m/s (the word people type)
+		{"knot", 5.144444e-01, sevenSF},                // NIST SP 811 B.8: knot, 5.144 444 E-01 m/s
 		{"mph", 4.4704e-01, exact},                     // NIST SP 811 B.8: mile per hour, 4.4704 E-01 m/s (exact)
 		{"ft/s", 3.048e-01, exact},                     // NIST SP 811 B.8: foot per second, 3.048 E-01 m/s (exact)
 		{"ft/min", 5.08e-03, exact},                    // NIST SP 811 B.8: foot per minute, 5.08 E-03 m/s (exact)
