@@ -1,0 +1,817 @@
+package materials
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+
+	"gonum.org/v1/gonum/optimize"
+)
+
+// Recipes: the conditions (mixture fraction, salinity, temperature,
+// pressure) that bring an entry to a required property, every other
+// required property holding at the same conditions.
+//
+// How a recipe is solved:
+//
+//  1. The study's preferred conditions (At, typically its water
+//     temperature) are kept, and the mixture knob alone is moved (glycerol
+//     fraction, salinity, gas pressure; the temperature for a fluid that
+//     has no other knob). Its valid range is sampled at recipeSamples
+//     points to bracket every sign change of ln(value/required), and each
+//     bracket is closed by bisection. gonum v0.17 has no scalar root
+//     finder; a bracketed bisection is guaranteed to converge for any
+//     continuous requirement (a required value that depends on the
+//     candidate's own density need not be monotone), never leaves the valid
+//     range, and costs some 60 evaluations of closed-form correlations.
+//  2. If no root there meets every requirement, all free conditions move
+//     together (the temperature too): gonum's Nelder–Mead minimises the
+//     squared excess of every requirement beyond its tolerance, over the
+//     ranges mapped onto the real line (x = lo + (hi − lo)(1 + sin u)/2),
+//     from the preferred point and the best points of a coarse sample; the
+//     target is then re-solved by bisection at the conditions found.
+//  3. If still nothing meets the requirements, the conditions that come
+//     nearest (in ln(value/required), the other requirements as penalties)
+//     are reported with the value reached: the recipe is "none".
+
+// DefaultRecipeTolerance is the relative tolerance of a recipe when the
+// spec gives none.
+const DefaultRecipeTolerance = 0.01
+
+// recipeSamples is the number of intervals each condition's range is
+// sampled in to bracket roots and seed the optimiser.
+const recipeSamples = 48
+
+// Target is a required value of one property.
+type Target struct {
+	Quantity string // a quantity name of package feasibility
+	// Value is the required value (SI), used when Of is nil.
+	Value float64
+	// Of, when set, gives the required value (SI) from the candidate's own
+	// properties at the conditions tried (SI, by quantity name): the
+	// viscosity a model needs depends on the model fluid's density through
+	// the density scale.
+	Of func(props map[string]float64) float64
+	// Tolerance is the relative tolerance; 0 takes the spec's.
+	Tolerance float64
+}
+
+// Range is an interval of a condition, SI.
+type Range struct{ Min, Max float64 }
+
+// RecipeSpec states what a recipe must achieve and what it may move.
+type RecipeSpec struct {
+	Target Target   // the property solved for
+	Also   []Target // properties that must hold at the same conditions
+	// Tolerance is the relative tolerance of every target that gives none;
+	// 0 means DefaultRecipeTolerance.
+	Tolerance float64
+	// At are the preferred conditions (the study's temperature): a recipe
+	// keeps them when it can, and moves them within range when it cannot.
+	At Conditions
+	// Hold lists conditions never moved from At (or from the entry's
+	// default when At does not give them).
+	Hold []Condition
+	// Limits narrow the valid ranges of conditions (a tank that can be
+	// held between 10 and 30 °C).
+	Limits map[Condition]Range
+}
+
+// Check is one requirement evaluated at a recipe's conditions.
+type Check struct {
+	Quantity  string
+	Value     float64 // the entry's value, SI
+	Required  float64 // SI
+	Deviation float64 // (Value − Required)/Required
+	Tolerance float64 // relative
+	Met       bool
+}
+
+// Recipe is the outcome for one entry: the conditions meeting the spec
+// (Met), or those coming nearest (not Met, the recipe is "none").
+type Recipe struct {
+	Entry      string
+	Kind       Kind
+	Conditions Conditions  // every condition the entry takes
+	Tuned      []Condition // conditions moved away from the preferred values
+	Target     Check
+	Also       []Check
+	Met        bool
+	Method     string // how it was found
+}
+
+// String is the short form of a recipe, e.g. "water_glycerol: 20 °C,
+// w = 0.8712 (kinematic_viscosity 1e-05 m^2/s, 0.02 % off)" or, when not
+// met, "none: nearest water_glycerol: ...".
+func (r Recipe) String() string {
+	cond := r.Conditions.String()
+	if cond == "" {
+		cond = "as supplied"
+	}
+	s := fmt.Sprintf("%s: %s (%s %s, %s %% off)", r.Entry, cond, r.Target.Quantity, num(r.Target.Value), num(100*r.Target.Deviation))
+	if !r.Met {
+		return "none: nearest " + s
+	}
+	return s
+}
+
+// Reached is the largest |deviation| over the target and the other
+// requirements: the tolerance the recipe reached.
+func (r Recipe) Reached() float64 {
+	worst := math.Abs(r.Target.Deviation)
+	for _, c := range r.Also {
+		worst = math.Max(worst, math.Abs(c.Deviation))
+	}
+	return worst
+}
+
+// ValuesAt returns the entry's property values (SI, by quantity) at the
+// conditions, defaults filled in and ranges checked. Unlike At it does not
+// compute tunable ranges, so it is cheap enough to call in a loop.
+func (e Entry) ValuesAt(c Conditions) (map[string]float64, error) {
+	rc, err := e.Resolve(e.Applicable(c))
+	if err != nil {
+		return nil, err
+	}
+	return e.values(rc), nil
+}
+
+func (e Entry) values(rc Conditions) map[string]float64 {
+	var props []Property
+	if e.model == nil {
+		props = complete(append([]Property(nil), e.fixed...))
+	} else {
+		props = complete(e.model(rc))
+	}
+	out := make(map[string]float64, len(props))
+	for _, p := range props {
+		out[p.Quantity] = p.Value
+	}
+	return out
+}
+
+// knob is a condition a recipe may move, within [lo, hi].
+type knob struct {
+	cond     Condition
+	lo, hi   float64
+	prefer   float64
+	moveable bool
+}
+
+// solver holds one entry's recipe problem.
+type solver struct {
+	e     Entry
+	spec  RecipeSpec
+	knobs []knob
+	base  Conditions // every condition at its preferred value
+	reqs  []Target   // target first, then Also, tolerances filled in
+}
+
+// Recipe finds conditions within the entry's valid ranges (narrowed by
+// spec.Limits) at which the target holds within tolerance together with
+// every Also requirement, preferring spec.At. An unmet requirement is not
+// an error: the recipe comes back with Met false and the nearest
+// conditions. Errors are for a spec that cannot be tried: a quantity the
+// entry lacks, a required value that is not positive and finite, a held
+// condition outside the valid range, limits that exclude the valid range.
+func (e Entry) Recipe(spec RecipeSpec) (Recipe, error) {
+	s, err := newSolver(e, spec)
+	if err != nil {
+		return Recipe{}, err
+	}
+	return s.solve()
+}
+
+func newSolver(e Entry, spec RecipeSpec) (*solver, error) {
+	tol := spec.Tolerance
+	if tol == 0 {
+		tol = DefaultRecipeTolerance
+	}
+	if !(tol > 0) || math.IsInf(tol, 0) {
+		return nil, fmt.Errorf("%s: recipe tolerance %v is not a positive number", e.Name, spec.Tolerance)
+	}
+	have := map[string]bool{}
+	for _, q := range e.Quantities() {
+		have[q] = true
+	}
+	s := &solver{e: e, spec: spec}
+	for _, t := range append([]Target{spec.Target}, spec.Also...) {
+		if !have[t.Quantity] {
+			return nil, fmt.Errorf("%s has no %s (it has %s)", e.Name, t.Quantity, strings.Join(e.Quantities(), ", "))
+		}
+		if t.Of == nil && !(t.Value > 0 && !math.IsInf(t.Value, 0)) {
+			return nil, fmt.Errorf("%s: required %s %v is not a positive finite value", e.Name, t.Quantity, t.Value)
+		}
+		if t.Tolerance == 0 {
+			t.Tolerance = tol
+		}
+		if !(t.Tolerance > 0) {
+			return nil, fmt.Errorf("%s: tolerance of %s %v is not positive", e.Name, t.Quantity, t.Tolerance)
+		}
+		s.reqs = append(s.reqs, t)
+	}
+	held := map[Condition]bool{}
+	for _, k := range spec.Hold {
+		held[k] = true
+	}
+	for _, r := range e.Ranges {
+		lo, hi := r.Min, r.Max
+		if lim, ok := spec.Limits[r.Condition]; ok {
+			lo, hi = math.Max(lo, lim.Min), math.Min(hi, lim.Max)
+			if !(lo <= hi) {
+				return nil, fmt.Errorf("%s: the limits %s leave nothing of its valid range %s of %s",
+					e.Name, FormatRange(r.Condition, lim.Min, lim.Max), FormatRange(r.Condition, r.Min, r.Max), r.Condition)
+			}
+		}
+		v, given := spec.At.Get(r.Condition)
+		if !given {
+			v = r.Default
+		}
+		if held[r.Condition] && !within(v, lo, hi) {
+			return nil, fmt.Errorf("%s: %s is held at %s, outside %s (%s)",
+				e.Name, r.Condition, FormatCondition(r.Condition, v), FormatRange(r.Condition, lo, hi), r.Source)
+		}
+		v = clamp(v, lo, hi)
+		s.base = s.base.With(r.Condition, v)
+		s.knobs = append(s.knobs, knob{cond: r.Condition, lo: lo, hi: hi, prefer: v, moveable: !held[r.Condition] && lo < hi})
+	}
+	return s, nil
+}
+
+// required is a requirement's value at the given properties.
+func (t Target) required(props map[string]float64) float64 {
+	if t.Of != nil {
+		return t.Of(props)
+	}
+	return t.Value
+}
+
+// logDev is ln(value/required) of requirement i at conditions c; +Inf when
+// the required value is not positive and finite.
+func (s *solver) logDev(i int, props map[string]float64) float64 {
+	req := s.reqs[i].required(props)
+	v := props[s.reqs[i].Quantity]
+	if !(req > 0) || math.IsInf(req, 0) || !(v > 0) {
+		return math.Inf(1)
+	}
+	return math.Log(v / req)
+}
+
+// excess is how far requirement i is beyond its tolerance, in ln terms
+// (0 when met).
+func (s *solver) excess(i int, props map[string]float64) float64 {
+	return s.excessWithin(i, props, 1)
+}
+
+// excessWithin is excess against a fraction of the tolerance (the joint
+// search aims inside the band, so that re-solving the target afterwards
+// keeps the others met).
+func (s *solver) excessWithin(i int, props map[string]float64, share float64) float64 {
+	tol := s.reqs[i].Tolerance * share
+	d := s.logDev(i, props)
+	band := math.Log(1 + tol)
+	if d < 0 {
+		band = -math.Log(1 - math.Min(tol, 0.999999))
+	}
+	return math.Max(0, math.Abs(d)-band)
+}
+
+func (s *solver) check(i int, props map[string]float64) Check {
+	t := s.reqs[i]
+	req := t.required(props)
+	v := props[t.Quantity]
+	c := Check{Quantity: t.Quantity, Value: v, Required: req, Tolerance: t.Tolerance}
+	if req != 0 {
+		c.Deviation = (v - req) / math.Abs(req)
+	}
+	c.Met = math.Abs(v-req) <= t.Tolerance*math.Abs(req)*(1+1e-9)
+	return c
+}
+
+func (s *solver) recipe(c Conditions, method string) Recipe {
+	props := s.e.values(c)
+	r := Recipe{Entry: s.e.Name, Kind: s.e.Kind, Conditions: c, Method: method, Target: s.check(0, props), Met: true}
+	r.Met = r.Target.Met
+	for i := 1; i < len(s.reqs); i++ {
+		ch := s.check(i, props)
+		r.Also = append(r.Also, ch)
+		r.Met = r.Met && ch.Met
+	}
+	for _, k := range s.knobs {
+		if v, _ := c.Get(k.cond); !sameValue(v, k.prefer) {
+			r.Tuned = append(r.Tuned, k.cond)
+		}
+	}
+	return r
+}
+
+func (s *solver) solve() (Recipe, error) {
+	if s.e.model == nil {
+		return s.solveFixed(), nil
+	}
+	var primary []int
+	var all []int
+	for i, k := range s.knobs {
+		if !k.moveable {
+			continue
+		}
+		all = append(all, i)
+		if k.cond != Temperature {
+			primary = append(primary, i)
+		}
+	}
+	if len(primary) == 0 {
+		primary = all
+	}
+	// Nothing to move: the preferred conditions are the recipe, or none.
+	if len(all) == 0 {
+		r := s.recipe(s.base, "fixed conditions")
+		return r, nil
+	}
+	// Stage 1: the mixture knob alone at the preferred conditions.
+	if len(primary) == 1 {
+		if r, ok := s.solve1D(primary[0], s.base); ok {
+			return r, nil
+		}
+	}
+	// Stage 2: every free condition together.
+	if len(all) > 1 || len(primary) > 1 {
+		if r, ok := s.solveJoint(all); ok {
+			return r, nil
+		}
+	}
+	return s.nearest(all), nil
+}
+
+// solveFixed handles an entry with fixed properties: a property with a
+// tunable range (model ice strength) meets any value within it.
+func (s *solver) solveFixed() Recipe {
+	props := s.e.values(Conditions{})
+	ranges := map[string][2]float64{}
+	for _, p := range s.e.fixed {
+		if p.Tunable() {
+			ranges[p.Quantity] = [2]float64{p.Min, p.Max}
+		}
+	}
+	method := "fixed properties"
+	for _, t := range s.reqs {
+		if rg, ok := ranges[t.Quantity]; ok && t.Of == nil {
+			props[t.Quantity] = clamp(t.Value, rg[0], rg[1])
+			method = "fixed properties; tuned within the entry's stated range by its preparation"
+		}
+	}
+	r := Recipe{Entry: s.e.Name, Kind: s.e.Kind, Method: method, Target: s.check(0, props)}
+	r.Met = r.Target.Met
+	for i := 1; i < len(s.reqs); i++ {
+		ch := s.check(i, props)
+		r.Also = append(r.Also, ch)
+		r.Met = r.Met && ch.Met
+	}
+	return r
+}
+
+// roots brackets and bisects the target on knob ki with the other
+// conditions as in base, returning the roots found, nearest the preferred
+// value first.
+func (s *solver) roots(ki int, base Conditions) []Conditions {
+	k := s.knobs[ki]
+	f := func(x float64) float64 { return s.logDev(0, s.e.values(base.With(k.cond, x))) }
+	var out []Conditions
+	xPrev, fPrev := k.lo, f(k.lo)
+	if fPrev == 0 {
+		out = append(out, base.With(k.cond, xPrev))
+	}
+	for i := 1; i <= recipeSamples; i++ {
+		x := k.lo + (k.hi-k.lo)*float64(i)/recipeSamples
+		fx := f(x)
+		switch {
+		case math.IsInf(fx, 0) || math.IsNaN(fx) || math.IsInf(fPrev, 0) || math.IsNaN(fPrev):
+		case fx == 0:
+			out = append(out, base.With(k.cond, x))
+		case (fPrev < 0) != (fx < 0) && fPrev != 0:
+			out = append(out, base.With(k.cond, bisect(f, xPrev, x, fPrev)))
+		}
+		xPrev, fPrev = x, fx
+	}
+	sort.SliceStable(out, func(i, j int) bool {
+		a, _ := out[i].Get(k.cond)
+		b, _ := out[j].Get(k.cond)
+		return math.Abs(a-k.prefer) < math.Abs(b-k.prefer)
+	})
+	return out
+}
+
+// bisect closes a bracket [a, b] with f(a) of sign fa and f(b) of the
+// other sign, to a width of 1e-12 of the bracket or 200 halvings.
+func bisect(f func(float64) float64, a, b, fa float64) float64 {
+	width := 1e-12 * math.Max(math.Abs(b-a), math.Max(math.Abs(a), math.Abs(b))*1e-3)
+	for i := 0; i < 200 && b-a > width; i++ {
+		m := a + (b-a)/2
+		fm := f(m)
+		if fm == 0 {
+			return m
+		}
+		if (fm < 0) == (fa < 0) {
+			a, fa = m, fm
+		} else {
+			b = m
+		}
+	}
+	return a + (b-a)/2
+}
+
+// solve1D solves the target on one knob; ok when a root meets every
+// requirement.
+func (s *solver) solve1D(ki int, base Conditions) (Recipe, bool) {
+	for _, c := range s.roots(ki, base) {
+		if r := s.recipe(c, "bracketed bisection on "+string(s.knobs[ki].cond)); r.Met {
+			return r, true
+		}
+	}
+	return Recipe{}, false
+}
+
+// box maps the free knobs onto the real line and back.
+type box struct {
+	s   *solver
+	idx []int
+}
+
+func (b box) conditions(u []float64) Conditions {
+	c := b.s.base
+	for j, ki := range b.idx {
+		k := b.s.knobs[ki]
+		c = c.With(k.cond, k.lo+(k.hi-k.lo)*(1+math.Sin(u[j]))/2)
+	}
+	return c
+}
+
+func (b box) point(c Conditions) []float64 {
+	u := make([]float64, len(b.idx))
+	for j, ki := range b.idx {
+		k := b.s.knobs[ki]
+		v, _ := c.Get(k.cond)
+		u[j] = math.Asin(clamp(2*(v-k.lo)/(k.hi-k.lo)-1, -1, 1))
+	}
+	return u
+}
+
+// seeds are the preferred point and the best few points of a coarse
+// sample of the box by the objective.
+func (b box) seeds(obj func(Conditions) float64, n int) []Conditions {
+	const steps = 6
+	type pt struct {
+		c Conditions
+		f float64
+	}
+	pts := []pt{{b.s.base, obj(b.s.base)}}
+	idx := make([]int, len(b.idx))
+	for {
+		c := b.s.base
+		for j, ki := range b.idx {
+			k := b.s.knobs[ki]
+			c = c.With(k.cond, k.lo+(k.hi-k.lo)*float64(idx[j])/steps)
+		}
+		pts = append(pts, pt{c, obj(c)})
+		j := 0
+		for ; j < len(idx); j++ {
+			idx[j]++
+			if idx[j] <= steps {
+				break
+			}
+			idx[j] = 0
+		}
+		if j == len(idx) {
+			break
+		}
+	}
+	sort.SliceStable(pts[1:], func(i, j int) bool { return pts[1+i].f < pts[1+j].f })
+	out := make([]Conditions, 0, n)
+	for i := 0; i < len(pts) && len(out) < n; i++ {
+		out = append(out, pts[i].c)
+	}
+	return out
+}
+
+// minimize runs gonum's Nelder–Mead on obj over the box from each seed and
+// returns the best conditions found.
+func (b box) minimize(obj func(Conditions) float64, seeds []Conditions) (Conditions, float64) {
+	best, bestF := b.s.base, math.Inf(1)
+	for _, seed := range seeds {
+		if f := obj(seed); f < bestF {
+			best, bestF = seed, f
+		}
+		p := optimize.Problem{Func: func(u []float64) float64 { return obj(b.conditions(u)) }}
+		settings := &optimize.Settings{
+			FuncEvaluations: 3000,
+			Converger:       &optimize.FunctionConverge{Absolute: 1e-14, Iterations: 200},
+		}
+		res, err := optimize.Minimize(p, b.point(seed), settings, &optimize.NelderMead{SimplexSize: 0.3})
+		if err != nil && res == nil {
+			continue
+		}
+		if c := b.conditions(res.X); res.F < bestF {
+			best, bestF = c, res.F
+		}
+		if bestF == 0 {
+			break
+		}
+	}
+	return best, bestF
+}
+
+// solveJoint moves every free condition; ok when every requirement is met.
+func (s *solver) solveJoint(all []int) (Recipe, bool) {
+	if r, ok, tried := s.solveAlongTemperature(all); tried {
+		return r, ok
+	}
+	b := box{s: s, idx: all}
+	obj := func(c Conditions) float64 {
+		props := s.e.values(c)
+		var f float64
+		for i := range s.reqs {
+			e := s.excessWithin(i, props, 0.5)
+			if math.IsInf(e, 0) || math.IsNaN(e) {
+				return math.MaxFloat64
+			}
+			f += e * e
+		}
+		// A pull towards the preferred conditions, small enough not to
+		// push a requirement past its tolerance (it aims at half of it):
+		// among the conditions that meet, prefer the nearest to the
+		// study's.
+		var d float64
+		for _, ki := range all {
+			k := s.knobs[ki]
+			v, _ := c.Get(k.cond)
+			d += ((v - k.prefer) / (k.hi - k.lo)) * ((v - k.prefer) / (k.hi - k.lo))
+		}
+		return f + 1e-8*d
+	}
+	c, _ := b.minimize(obj, b.seeds(obj, 4))
+	// Polish: re-solve the target on the mixture knob at the conditions
+	// found, so that the recipe sits on the requirement, not at the edge of
+	// its tolerance.
+	for _, ki := range all {
+		if s.knobs[ki].cond == Temperature && len(all) > 1 {
+			continue
+		}
+		if r, ok := s.solve1D(ki, c); ok {
+			r.Method = "gonum Nelder–Mead over " + s.knobList(all) + ", then bracketed bisection on " + string(s.knobs[ki].cond)
+			return r, true
+		}
+		break
+	}
+	r := s.recipe(c, "gonum Nelder–Mead over "+s.knobList(all))
+	return r, r.Met
+}
+
+// solveAlongTemperature handles the usual joint case, one mixture knob
+// and the temperature: at every temperature tried the target is solved on
+// the mixture knob (bracketed bisection), so gonum's Nelder–Mead searches
+// the temperature alone for the one nearest the study's at which the other
+// requirements hold (aiming inside half their tolerance). tried is false
+// when the knobs are not of that shape.
+func (s *solver) solveAlongTemperature(all []int) (r Recipe, ok, tried bool) {
+	if len(all) != 2 {
+		return Recipe{}, false, false
+	}
+	ti, mi := all[0], all[1]
+	if s.knobs[mi].cond == Temperature {
+		ti, mi = mi, ti
+	}
+	if s.knobs[ti].cond != Temperature || s.knobs[mi].cond == Temperature {
+		return Recipe{}, false, false
+	}
+	tk := s.knobs[ti]
+	// at returns the best root at temperature T and its objective.
+	at := func(T float64) (Conditions, float64) {
+		base := s.base.With(Temperature, T)
+		roots := s.roots(mi, base)
+		if len(roots) == 0 {
+			return base, math.MaxFloat64
+		}
+		best, bestF := roots[0], math.Inf(1)
+		for _, c := range roots {
+			props := s.e.values(c)
+			var f float64
+			for i := 1; i < len(s.reqs); i++ {
+				e := s.excessWithin(i, props, 0.5)
+				f += e * e
+			}
+			if f < bestF {
+				best, bestF = c, f
+			}
+		}
+		d := (T - tk.prefer) / (tk.hi - tk.lo)
+		return best, bestF + 1e-8*d*d
+	}
+	b := box{s: s, idx: []int{ti}}
+	obj := func(c Conditions) float64 {
+		T, _ := c.Get(Temperature)
+		_, f := at(T)
+		return f
+	}
+	c, f := b.minimize(obj, b.seeds(obj, 3))
+	if f == math.MaxFloat64 {
+		return Recipe{}, false, true
+	}
+	T, _ := c.Get(Temperature)
+	root, _ := at(T)
+	r = s.recipe(root, "gonum Nelder–Mead over temperature, with bracketed bisection on "+string(s.knobs[mi].cond)+" at each temperature")
+	return r, r.Met, true
+}
+
+// nearest finds the conditions bringing the target nearest its required
+// value, the other requirements as penalties: the recipe "none".
+func (s *solver) nearest(all []int) Recipe {
+	b := box{s: s, idx: all}
+	obj := func(c Conditions) float64 {
+		props := s.e.values(c)
+		d := s.logDev(0, props)
+		if math.IsInf(d, 0) || math.IsNaN(d) {
+			return math.MaxFloat64
+		}
+		f := d * d
+		for i := 1; i < len(s.reqs); i++ {
+			e := s.excess(i, props)
+			if math.IsInf(e, 0) || math.IsNaN(e) {
+				return math.MaxFloat64
+			}
+			f += e * e
+		}
+		return f
+	}
+	c, _ := b.minimize(obj, b.seeds(obj, 3))
+	return s.recipe(c, "nearest: gonum Nelder–Mead over "+s.knobList(all))
+}
+
+func (s *solver) knobList(idx []int) string {
+	var names []string
+	for _, i := range idx {
+		names = append(names, string(s.knobs[i].cond))
+	}
+	return strings.Join(names, " and ")
+}
+
+// Search is the outcome of a search of the whole library.
+type Search struct {
+	Met     []Recipe // entries meeting the spec, best first
+	Nearest []Recipe // when none meets: each entry's nearest, nearest first
+	Skipped []string // entries not tried, with the reason
+}
+
+// FindRecipes tries every entry that has the target's quantity and that
+// the filter accepts (nil: all), each at its own conditions (spec.At
+// applies where the entry takes the condition). Met lists the recipes
+// meeting the spec by the tolerance reached, then by the number of
+// conditions moved, then by name; when none meets, Nearest lists each
+// entry's nearest recipe by |ln(value/required)|.
+func (l *Library) FindRecipes(spec RecipeSpec, filter func(Entry) bool) Search {
+	var out Search
+	for _, e := range l.Entries() {
+		if filter != nil && !filter(e) || !hasQuantity(e, spec.Target.Quantity) {
+			continue
+		}
+		sp := spec
+		sp.At = e.Applicable(spec.At)
+		r, err := e.Recipe(sp)
+		if err != nil {
+			out.Skipped = append(out.Skipped, err.Error())
+			continue
+		}
+		if r.Met {
+			out.Met = append(out.Met, r)
+		} else {
+			out.Nearest = append(out.Nearest, r)
+		}
+	}
+	sort.SliceStable(out.Met, func(i, j int) bool {
+		a, b := out.Met[i], out.Met[j]
+		if x, y := a.Reached(), b.Reached(); x != y {
+			return x < y
+		}
+		if len(a.Tuned) != len(b.Tuned) {
+			return len(a.Tuned) < len(b.Tuned)
+		}
+		return a.Entry < b.Entry
+	})
+	if len(out.Met) > 0 {
+		out.Nearest = nil
+		return out
+	}
+	logOff := func(r Recipe) float64 { return math.Abs(math.Log1p(r.Target.Deviation)) }
+	sort.SliceStable(out.Nearest, func(i, j int) bool {
+		if x, y := logOff(out.Nearest[i]), logOff(out.Nearest[j]); x != y {
+			return x < y
+		}
+		return out.Nearest[i].Entry < out.Nearest[j].Entry
+	})
+	return out
+}
+
+func hasQuantity(e Entry, q string) bool {
+	for _, x := range e.Quantities() {
+		if x == q {
+			return true
+		}
+	}
+	return false
+}
+
+// Liquids accepts the fluids that are liquids: fluids that take no
+// pressure (the gases do) and are denser than 200 kg/m³ at their defaults.
+func Liquids(e Entry) bool {
+	if e.Kind != Fluid || e.Takes(Pressure) {
+		return false
+	}
+	v, err := e.ValuesAt(Conditions{})
+	if err != nil {
+		return false
+	}
+	rho, ok := v["density"]
+	return !ok || rho > 200
+}
+
+// ErrNoEntry is returned by Extreme when no entry has the quantity.
+var ErrNoEntry = errors.New("no entry of the library has that property")
+
+// Extreme finds the lowest (or, with lowest false, the highest) value of a
+// property that the entries accepted by filter (nil: all) can be brought
+// to within their valid ranges narrowed by limits, and the recipe giving
+// it: "the least viscous liquid the library can make". Fixed entries count
+// with their value (or the end of a tunable range).
+func (l *Library) Extreme(quantity string, lowest bool, limits map[Condition]Range, filter func(Entry) bool) (Recipe, error) {
+	var best Recipe
+	found := false
+	sign := 1.0
+	if !lowest {
+		sign = -1
+	}
+	for _, e := range l.Entries() {
+		if filter != nil && !filter(e) || !hasQuantity(e, quantity) {
+			continue
+		}
+		r, err := extremeOf(e, quantity, sign, limits)
+		if err != nil {
+			continue
+		}
+		if !found || sign*r.Target.Value < sign*best.Target.Value {
+			best, found = r, true
+		}
+	}
+	if !found {
+		return Recipe{}, fmt.Errorf("%s: %w", quantity, ErrNoEntry)
+	}
+	return best, nil
+}
+
+// extremeOf is one entry's extreme of a property over its free conditions.
+func extremeOf(e Entry, quantity string, sign float64, limits map[Condition]Range) (Recipe, error) {
+	s, err := newSolver(e, RecipeSpec{Target: Target{Quantity: quantity, Of: func(p map[string]float64) float64 { return p[quantity] }}, Limits: limits})
+	if err != nil {
+		return Recipe{}, err
+	}
+	if e.model == nil {
+		v := s.e.values(Conditions{})
+		for _, p := range e.fixed {
+			if p.Quantity == quantity && p.Tunable() {
+				v[quantity] = p.Min
+				if sign < 0 {
+					v[quantity] = p.Max
+				}
+			}
+		}
+		return Recipe{Entry: e.Name, Kind: e.Kind, Method: "fixed properties",
+			Target: Check{Quantity: quantity, Value: v[quantity], Required: v[quantity], Met: true}, Met: true}, nil
+	}
+	var all []int
+	for i, k := range s.knobs {
+		if k.moveable {
+			all = append(all, i)
+		}
+	}
+	c := s.base
+	if len(all) > 0 {
+		b := box{s: s, idx: all}
+		obj := func(c Conditions) float64 {
+			v := s.e.values(c)[quantity]
+			if !(v > 0) {
+				return math.MaxFloat64
+			}
+			return sign * math.Log(v)
+		}
+		c, _ = b.minimize(obj, b.seeds(obj, 3))
+	}
+	v := s.e.values(c)[quantity]
+	r := Recipe{Entry: e.Name, Kind: e.Kind, Conditions: c, Method: "extreme: gonum Nelder–Mead over " + s.knobList(all),
+		Target: Check{Quantity: quantity, Value: v, Required: v, Met: true}, Met: true}
+	for _, k := range s.knobs {
+		if x, _ := c.Get(k.cond); !sameValue(x, k.prefer) {
+			r.Tuned = append(r.Tuned, k.cond)
+		}
+	}
+	return r, nil
+}
