@@ -460,8 +460,7 @@ func (b box) point(c Conditions) []float64 {
 
 // seeds are the preferred point and the best few points of a coarse
 // sample of the box by the objective.
-func (b box) seeds(obj func(Conditions) float64, n int) []Conditions {
-	const steps = 6
+func (b box) seeds(obj func(Conditions) float64, n, steps int) []Conditions {
 	type pt struct {
 		c Conditions
 		f float64
@@ -472,7 +471,7 @@ func (b box) seeds(obj func(Conditions) float64, n int) []Conditions {
 		c := b.s.base
 		for j, ki := range b.idx {
 			k := b.s.knobs[ki]
-			c = c.With(k.cond, k.lo+(k.hi-k.lo)*float64(idx[j])/steps)
+			c = c.With(k.cond, k.lo+(k.hi-k.lo)*float64(idx[j])/float64(steps))
 		}
 		pts = append(pts, pt{c, obj(c)})
 		j := 0
@@ -550,7 +549,7 @@ func (s *solver) solveJoint(all []int) (Recipe, bool) {
 		}
 		return f + 1e-8*d
 	}
-	c, _ := b.minimize(obj, b.seeds(obj, 4))
+	c, _ := b.minimize(obj, b.seeds(obj, 4, 6))
 	// Polish: re-solve the target on the mixture knob at the conditions
 	// found, so that the recipe sits on the requirement, not at the edge of
 	// its tolerance.
@@ -614,7 +613,18 @@ func (s *solver) solveAlongTemperature(all []int) (r Recipe, ok, tried bool) {
 		_, f := at(T)
 		return f
 	}
-	c, f := b.minimize(obj, b.seeds(obj, 3))
+	// No temperature of a 24-interval sample has a root: the target lies
+	// outside what the mixture knob reaches over the whole range (the
+	// nearest search reports how near it comes).
+	seeds := b.seeds(obj, 3, 24)
+	rooted := false
+	for _, c := range seeds {
+		rooted = rooted || obj(c) < math.MaxFloat64
+	}
+	if !rooted {
+		return Recipe{}, false, true
+	}
+	c, f := b.minimize(obj, seeds)
 	if f == math.MaxFloat64 {
 		return Recipe{}, false, true
 	}
@@ -644,7 +654,7 @@ func (s *solver) nearest(all []int) Recipe {
 		}
 		return f
 	}
-	c, _ := b.minimize(obj, b.seeds(obj, 3))
+	c, _ := b.minimize(obj, b.seeds(obj, 3, 6))
 	return s.recipe(c, "nearest: gonum Nelder–Mead over "+s.knobList(all))
 }
 
@@ -803,7 +813,7 @@ func extremeOf(e Entry, quantity string, sign float64, limits map[Condition]Rang
 			}
 			return sign * math.Log(v)
 		}
-		c, _ = b.minimize(obj, b.seeds(obj, 3))
+		c, _ = b.minimize(obj, b.seeds(obj, 3, 6))
 	}
 	v := s.e.values(c)[quantity]
 	r := Recipe{Entry: e.Name, Kind: e.Kind, Conditions: c, Method: "extreme: gonum Nelder–Mead over " + s.knobList(all),
