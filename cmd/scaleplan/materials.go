@@ -23,8 +23,10 @@ func materialsCommand() *cli.Command {
 			"where it can be tuned, its range. CONDITIONS are comma-separated values whose unit tells what they\n" +
 			"are: 20C (temperature), 3bar (absolute pressure), 35g/kg (salinity), 50% (glycerol mass fraction),\n" +
 			"or KEY=VALUE with T, p, S (g/kg) and w: --at 20C, --at 15C,35g/kg, --at 5bar, --at 20C,w=0.6.\n" +
-			"Conditions not given take the entry's defaults (20 °C, 101325 Pa, 35 g/kg, w = 0.5); values\n" +
-			"outside an entry's valid range are refused, never extrapolated.",
+			"Conditions not given take the entry's defaults (20 °C, 101325 Pa, 35 g/kg, w = 0.5; 25 °C for\n" +
+			"the silicone oils), a default mixture fraction said beside the conditions; values outside an\n" +
+			"entry's valid range are refused, never extrapolated. glycerol is pure glycerol; water_glycerol\n" +
+			"and brine are mixtures (give w= or S=).",
 		Flags: []cli.Flag{
 			&cli.StringFlag{Name: "at", Usage: "conditions, e.g. 20C, 15C,35g/kg or 5bar"},
 			&cli.BoolFlag{Name: "json", Usage: "print data as JSON"},
@@ -61,9 +63,9 @@ func materialsCommand() *cli.Command {
 				return err
 			}
 			if c.Bool("json") {
-				return writeMaterialJSON(c.App.Writer, e, rc, props)
+				return writeMaterialJSON(c.App.Writer, e, rc, props, e.Defaulted(cond))
 			}
-			return writeMaterial(c.App.Writer, e, rc, props)
+			return writeMaterial(c.App.Writer, e, rc, props, e.DefaultNote(cond))
 		},
 	}
 }
@@ -164,12 +166,17 @@ func writeMaterialsListJSON(w io.Writer, lib *materials.Library) error {
 	return writeMaterialsData(w, out)
 }
 
-func writeMaterial(w io.Writer, e materials.Entry, rc materials.Conditions, props []materials.Property) error {
+// writeMaterial prints an entry at resolved conditions; note says which
+// mixture fraction was taken by default ("" when none).
+func writeMaterial(w io.Writer, e materials.Entry, rc materials.Conditions, props []materials.Property, note string) error {
 	fmt.Fprintf(w, "%s (%s): %s\n", e.Name, e.Kind, e.Description)
 	if len(e.Ranges) == 0 {
 		fmt.Fprintln(w, "conditions: none (fixed properties)")
 	} else {
-		fmt.Fprintf(w, "conditions: %s\nvalid: %s\n", rc, materialConditionsTaken(e))
+		if note != "" {
+			note = " (" + note + ")"
+		}
+		fmt.Fprintf(w, "conditions: %s%s\nvalid: %s\n", rc, note, materialConditionsTaken(e))
 	}
 	fmt.Fprintln(w)
 	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
@@ -184,7 +191,7 @@ func writeMaterial(w io.Writer, e materials.Entry, rc materials.Conditions, prop
 	return tw.Flush()
 }
 
-func writeMaterialJSON(w io.Writer, e materials.Entry, rc materials.Conditions, props []materials.Property) error {
+func writeMaterialJSON(w io.Writer, e materials.Entry, rc materials.Conditions, props []materials.Property, defaulted []materials.Condition) error {
 	type rangeJSON struct {
 		Min float64 `json:"min"`
 		Max float64 `json:"max"`
@@ -195,6 +202,7 @@ func writeMaterialJSON(w io.Writer, e materials.Entry, rc materials.Conditions, 
 		Description     string                       `json:"description"`
 		Custom          bool                         `json:"custom"`
 		Conditions      map[string]float64           `json:"conditions"`
+		Defaulted       []string                     `json:"defaulted_mixture,omitempty"`
 		ConditionRanges []materialConditionRangeJSON `json:"condition_ranges"`
 		Properties      map[string]float64           `json:"properties"`
 		Units           map[string]string            `json:"units"`
@@ -209,6 +217,9 @@ func writeMaterialJSON(w io.Writer, e materials.Entry, rc materials.Conditions, 
 	for _, k := range rc.Given() {
 		v, _ := rc.Get(k)
 		out.Conditions[string(k)] = v
+	}
+	for _, k := range defaulted {
+		out.Defaulted = append(out.Defaulted, string(k))
 	}
 	for _, p := range props {
 		out.Properties[p.Quantity] = p.Value

@@ -123,6 +123,16 @@ func TestMaterialsEntryText(t *testing.T) {
 			t.Errorf("output lacks %q:\n%s", s, out)
 		}
 	}
+	// A mixture named without its fraction says the default it took;
+	// glycerol is pure glycerol.
+	code, out, errOut = runMaterials("water_glycerol")
+	if code != 0 || !strings.Contains(out, "conditions: 20 °C, w = 0.5 (w = 0.5 by default: give w= for another mixture)") {
+		t.Errorf("water_glycerol without w: exit %d %s\n%s", code, errOut, out)
+	}
+	code, out, errOut = runMaterials("glycerine")
+	if code != 0 || !strings.Contains(out, "glycerol (fluid): glycerol (glycerine), pure") || strings.Contains(out, "w =") {
+		t.Errorf("glycerine: exit %d %s\n%s", code, errOut, out)
+	}
 	code, out, errOut = runMaterials("seawater", "--at", "15C,35g/kg")
 	if code != 0 {
 		t.Fatalf("exit %d: %s", code, errOut)
@@ -141,7 +151,10 @@ func TestMaterialsErrors(t *testing.T) {
 		{[]string{"water", "--at", "500C"}, 1, "scaleplan: water: temperature 500 °C is outside the valid range 0–40 °C"},
 		{[]string{"air", "--at", "-3bar"}, 1, `scaleplan: conditions "-3bar": pressure -300 kPa is not positive (give the absolute pressure)`},
 		{[]string{"watr"}, 1, `scaleplan: unknown material or medium "watr" (did you mean water?)`},
-		{[]string{"steel", "--at", "20C"}, 1, "scaleplan: unknown material or medium"},
+		{[]string{"steel", "--at", "20C"}, 1, `scaleplan: material or medium "steel" names several entries: give one of structural_steel, stainless_steel`},
+		{[]string{"oil"}, 1, "silicone_oil_100cst"},
+		{[]string{"plaster"}, 1, "did you mean gypsum_plaster?"},
+		{[]string{"seawater", "--at", "S=0.035"}, 1, "for a fraction write S=3.5% or S=35g/kg"},
 		{[]string{"structural_steel", "--at", "20C"}, 1, "scaleplan: structural_steel: its properties are fixed"},
 		{[]string{"water", "--at", "20"}, 1, "a bare number is ambiguous"},
 		{[]string{"--at", "20C"}, 2, "scaleplan: --at needs a NAME"},
