@@ -15,7 +15,7 @@ type Condition string
 const (
 	Temperature  Condition = "temperature"   // K
 	Pressure     Condition = "pressure"      // Pa, absolute
-	Salinity     Condition = "salinity"      // kg of salt per kg of seawater
+	Salinity     Condition = "salinity"      // kg of salt per kg of seawater (or of brine)
 	MassFraction Condition = "mass_fraction" // kg of glycerol per kg of mixture
 )
 
