@@ -52,17 +52,10 @@ const (
 )
 
 func brineEntry() Entry {
-	return Entry{
-		Ranges: []ConditionRange{
-			{Condition: Temperature, Default: 293.15, Min: 273.15, Max: 373.15, Source: brineRange},
-			{Condition: Salinity, Default: 0.035, Min: 0, Max: 0.26, Tunable: true, Composition: true, Source: brineRange},
-		},
-		model: func(c Conditions) []Property {
-			t, w := c.Temperature-273.15, c.Salinity
-			return []Property{
-				{Quantity: "density", Value: brineDensity(t, w), Source: srcLaliberteRho},
-				{Quantity: "viscosity", Value: brineViscosity(t, w), Source: srcLaliberteMu},
-			}
-		},
-	}
+	return mixtureEntry(liquidMixture{
+		comp:    ConditionRange{Condition: Salinity, Default: 0.035, Min: 0, Max: 0.26},
+		rangeOf: brineRange,
+		density: brineDensity, viscosity: brineViscosity,
+		srcRho: srcLaliberteRho, srcMu: srcLaliberteMu,
+	})
 }

@@ -60,16 +60,38 @@ const (
 )
 
 func glycerolEntry() Entry {
+	return mixtureEntry(liquidMixture{
+		comp:    ConditionRange{Condition: MassFraction, Default: 0.5, Min: 0, Max: 1},
+		rangeOf: glycerolRange,
+		density: glycerolDensity, viscosity: glycerolViscosity,
+		srcRho: srcVolkRho, srcMu: srcChengMu,
+	})
+}
+
+// liquidMixture is a liquid at atmospheric pressure whose density and
+// viscosity are functions of its temperature t (°C, 0–100) and of one
+// composition x (its mass fraction), the tunable knob.
+type liquidMixture struct {
+	comp               ConditionRange // the composition: condition, default and range
+	rangeOf            string         // the source of the valid ranges
+	density, viscosity func(t, x float64) float64
+	srcRho, srcMu      string
+}
+
+func mixtureEntry(m liquidMixture) Entry {
+	comp := m.comp
+	comp.Tunable, comp.Composition, comp.Source = true, true, m.rangeOf
 	return Entry{
 		Ranges: []ConditionRange{
-			{Condition: Temperature, Default: 293.15, Min: 273.15, Max: 373.15, Source: glycerolRange},
-			{Condition: MassFraction, Default: 0.5, Min: 0, Max: 1, Tunable: true, Composition: true, Source: glycerolRange},
+			{Condition: Temperature, Default: 293.15, Min: 273.15, Max: 373.15, Source: m.rangeOf},
+			comp,
 		},
 		model: func(c Conditions) []Property {
-			t, cm := c.Temperature-273.15, c.MassFraction
+			t, _ := c.Get(Temperature)
+			x, _ := c.Get(comp.Condition)
 			return []Property{
-				{Quantity: "density", Value: glycerolDensity(t, cm), Source: srcVolkRho},
-				{Quantity: "viscosity", Value: glycerolViscosity(t, cm), Source: srcChengMu},
+				{Quantity: "density", Value: m.density(t-273.15, x), Source: m.srcRho},
+				{Quantity: "viscosity", Value: m.viscosity(t-273.15, x), Source: m.srcMu},
 			}
 		},
 	}
