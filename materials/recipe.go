@@ -8,6 +8,8 @@ import (
 	"strings"
 
 	"gonum.org/v1/gonum/optimize"
+
+	"scaleplan/feasibility"
 )
 
 // Recipes: the conditions (mixture fraction, salinity, temperature,
@@ -110,11 +112,19 @@ func (r Recipe) String() string {
 	if cond == "" {
 		cond = "as supplied"
 	}
-	s := fmt.Sprintf("%s: %s (%s %s, %s %% off)", r.Entry, cond, r.Target.Quantity, num(r.Target.Value), num(100*r.Target.Deviation))
+	s := fmt.Sprintf("%s: %s (%s %s, %s %% off)", r.Entry, cond, r.Target.Quantity, withUnit(r.Target.Quantity, r.Target.Value), num(100*r.Target.Deviation))
 	if !r.Met {
 		return "none: nearest " + s
 	}
 	return s
+}
+
+// withUnit prints an SI value with the SI unit of its quantity.
+func withUnit(quantity string, v float64) string {
+	if q, err := feasibility.LookupQuantity(quantity); err == nil && q.SI != "" && q.SI != "1" {
+		return num(v) + " " + q.SI
+	}
+	return num(v)
 }
 
 // Reached is the largest |deviation| over the target and the other
@@ -671,6 +681,11 @@ type Search struct {
 	Met     []Recipe // entries meeting the spec, best first
 	Nearest []Recipe // when none meets: each entry's nearest, nearest first
 	Skipped []string // entries not tried, with the reason
+	// When none meets: the extreme the searched entries can make on the
+	// side of the requirement (the least viscous liquid, for a viscosity
+	// below all of them), and a sentence saying so.
+	Extreme *Recipe
+	Reason  string
 }
 
 // FindRecipes tries every entry that has the target's quantity and that
@@ -719,6 +734,22 @@ func (l *Library) FindRecipes(spec RecipeSpec, filter func(Entry) bool) Search {
 		}
 		return out.Nearest[i].Entry < out.Nearest[j].Entry
 	})
+	q := spec.Target.Quantity
+	if len(out.Nearest) == 0 {
+		out.Reason = fmt.Sprintf("no entry searched has %s", q)
+		return out
+	}
+	best := out.Nearest[0]
+	lowest := best.Target.Value > best.Target.Required
+	side := "highest"
+	if lowest {
+		side = "lowest"
+	}
+	out.Reason = fmt.Sprintf("%s %s: no entry searched can be brought to it within its tolerance", q, withUnit(q, best.Target.Required))
+	if ext, err := l.Extreme(q, lowest, spec.Limits, filter); err == nil {
+		out.Extreme = &ext
+		out.Reason += fmt.Sprintf("; the %s %s they can make is %s (%s at %s)", side, q, withUnit(q, ext.Target.Value), ext.Entry, ext.Conditions)
+	}
 	return out
 }
 

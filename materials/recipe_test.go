@@ -255,6 +255,11 @@ func TestFindRecipesAndLeastViscousLiquid(t *testing.T) {
 	if err != nil || !Liquids(e) || !nearRel(v["kinematic_viscosity"], least.Target.Value, 1e-12) {
 		t.Errorf("least viscous: %s at %s (%v)", least.Entry, least.Conditions, err)
 	}
+	// The search says why: what is needed and the least viscous liquid.
+	if s.Extreme == nil || s.Extreme.Entry != least.Entry || !strings.HasPrefix(s.Reason, "kinematic_viscosity 3e-08 m^2/s: no entry searched") ||
+		!strings.Contains(s.Reason, "the lowest kinematic_viscosity they can make is 2.9") {
+		t.Errorf("reason %q", s.Reason)
+	}
 	// The nearest recipe to 3e-8 is no closer than the least viscous liquid.
 	if s.Nearest[0].Target.Value < least.Target.Value*(1-1e-6) {
 		t.Errorf("nearest %s is below the library's least viscous liquid %g", s.Nearest[0], least.Target.Value)
