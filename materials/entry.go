@@ -72,7 +72,7 @@ func (e Entry) Resolve(c Conditions) (Conditions, error) {
 			return Conditions{}, fmt.Errorf("%s: takes a salinity, not a glycerol mass fraction (a bare %s%% is read as w); write its salinity as S=%s%% or %sg/kg",
 				e.Name, num(v*100), num(v*100), num(v*1000))
 		}
-		return Conditions{}, fmt.Errorf("%s: does not depend on %s; it takes %s", e.Name, k, e.takesList())
+		return Conditions{}, fmt.Errorf("%s: does not depend on %s; it takes %s%s", e.Name, k, e.takesList(), otherEntryHint(e.Name, k))
 	}
 	return e.resolve(c)
 }
@@ -106,6 +106,20 @@ func (e Entry) resolve(c Conditions) (Conditions, error) {
 		out = out.With(r.Condition, clamp(v, r.Min, r.Max))
 	}
 	return out, nil
+}
+
+// otherEntryHint names the entry that does take a condition given to a
+// pure substance: glycerol with w= means the mixture.
+func otherEntryHint(name string, k Condition) string {
+	switch {
+	case name == "glycerol" && k == MassFraction:
+		return " (glycerol is pure glycerol; for a mixture name water_glycerol with w=)"
+	case name == "water" && k == Salinity:
+		return " (for salt water name seawater, or brine for a sodium chloride solution)"
+	case name == "water" && k == MassFraction:
+		return " (for a water–glycerol mixture name water_glycerol)"
+	}
+	return ""
 }
 
 // Defaulted lists the mixture fractions (Composition conditions) the

@@ -28,6 +28,8 @@ func TestSpecEntries(t *testing.T) {
 		"helium":         {"density", "kinematic_viscosity", "sound_speed", "viscosity"},
 		"carbon_dioxide": {"density", "kinematic_viscosity", "sound_speed", "viscosity"},
 		"water_glycerol": {"density", "kinematic_viscosity", "viscosity"},
+		"glycerol":       {"density", "kinematic_viscosity", "viscosity"},
+		"brine":          {"density", "kinematic_viscosity", "viscosity"},
 		"dry_dense_sand": {"cohesion", "density", "friction"},
 		"dry_loose_sand": {"cohesion", "density", "friction"},
 		"soft_clay":      {"cohesion", "density", "friction"},
@@ -136,6 +138,10 @@ func TestRangeRefusals(t *testing.T) {
 		{"water_glycerol", "120C,w=0.5", "water_glycerol: temperature 120 °C is outside the valid range 0–100 °C"},
 		{"structural_steel", "20C", "structural_steel: its properties are fixed"},
 		{"air", "20C,35g/kg", "air: does not depend on salinity"},
+		{"glycerol", "w=0.6", "glycerol is pure glycerol; for a mixture name water_glycerol with w="},
+		{"water", "35g/kg", "for salt water name seawater, or brine"},
+		{"brine", "20C,S=300", "brine: salinity 300 g/kg is outside the valid range 0–260 g/kg"},
+		{"silicone_oil_100cst", "120C", "outside the valid range 0–100 °C"},
 	}
 	for _, c := range cases {
 		e, err := l.Lookup(c.entry)
