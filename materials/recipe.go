@@ -194,6 +194,26 @@ func (e Entry) Recipe(spec RecipeSpec) (Recipe, error) {
 	return s.solve()
 }
 
+// Evaluate checks the spec's requirements at given conditions without
+// solving: whether a recipe found at one scale also serves another, or
+// what a candidate gives at the study's conditions. The conditions are
+// resolved like At's (defaults filled in, ranges checked; those the entry
+// does not take are ignored).
+func (e Entry) Evaluate(spec RecipeSpec, c Conditions) (Recipe, error) {
+	s, err := newSolver(e, spec)
+	if err != nil {
+		return Recipe{}, err
+	}
+	rc, err := e.Resolve(e.Applicable(c))
+	if err != nil {
+		return Recipe{}, err
+	}
+	if e.model == nil {
+		return s.solveFixed(), nil
+	}
+	return s.recipe(rc, "evaluated at given conditions"), nil
+}
+
 func newSolver(e Entry, spec RecipeSpec) (*solver, error) {
 	tol := spec.Tolerance
 	if tol == 0 {
@@ -514,8 +534,8 @@ func (b box) minimize(obj func(Conditions) float64, seeds []Conditions) (Conditi
 		}
 		p := optimize.Problem{Func: func(u []float64) float64 { return obj(b.conditions(u)) }}
 		settings := &optimize.Settings{
-			FuncEvaluations: 3000,
-			Converger:       &optimize.FunctionConverge{Absolute: 1e-14, Iterations: 200},
+			FuncEvaluations: 1500,
+			Converger:       &optimize.FunctionConverge{Absolute: 1e-14, Iterations: 50},
 		}
 		res, err := optimize.Minimize(p, b.point(seed), settings, &optimize.NelderMead{SimplexSize: 0.3})
 		if err != nil && res == nil {

@@ -300,3 +300,54 @@ func containsCondition(list []Condition, k Condition) bool {
 	}
 	return false
 }
+
+func TestEvaluateServesNeighbouringRequirement(t *testing.T) {
+	// A recipe for 1e-5 m²/s also serves 1.005e-5 within 1 %, not 1.05e-5.
+	l := defaultLibrary(t)
+	e, _ := l.Lookup("water_glycerol")
+	at := Conditions{}.With(Temperature, 293.15)
+	r, err := e.Recipe(RecipeSpec{Target: Target{Quantity: "kinematic_viscosity", Value: 1e-5}, At: at})
+	if err != nil || !r.Met {
+		t.Fatalf("%v %v", r, err)
+	}
+	for _, c := range []struct {
+		nu    float64
+		serve bool
+	}{{1.005e-5, true}, {0.995e-5, true}, {1.05e-5, false}} {
+		got, err := e.Evaluate(RecipeSpec{Target: Target{Quantity: "kinematic_viscosity", Value: c.nu}}, r.Conditions)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got.Met != c.serve || !nearRel(got.Target.Deviation, (1e-5-c.nu)/c.nu, 1e-6) {
+			t.Errorf("recipe for 1e-5 at %g: met %v, deviation %g", c.nu, got.Met, got.Target.Deviation)
+		}
+	}
+	if _, err := e.Evaluate(RecipeSpec{Target: Target{Quantity: "kinematic_viscosity", Value: 1e-5}}, at.With(Temperature, 400)); err == nil {
+		t.Errorf("conditions outside the valid range should be refused")
+	}
+}
+
+func BenchmarkRecipeWaterGlycerol(b *testing.B) {
+	l, err := Default()
+	if err != nil {
+		b.Fatal(err)
+	}
+	e, _ := l.Lookup("water_glycerol")
+	spec := RecipeSpec{Target: Target{Quantity: "kinematic_viscosity", Value: 1e-5}, At: Conditions{}.With(Temperature, 293.15)}
+	for b.Loop() {
+		if _, err := e.Recipe(spec); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkFindRecipesUnreachable(b *testing.B) {
+	l, err := Default()
+	if err != nil {
+		b.Fatal(err)
+	}
+	spec := RecipeSpec{Target: Target{Quantity: "kinematic_viscosity", Value: 3e-8}, Tolerance: 0.05, At: Conditions{}.With(Temperature, 288.15)}
+	for b.Loop() {
+		l.FindRecipes(spec, Liquids)
+	}
+}
