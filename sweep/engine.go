@@ -433,7 +433,7 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 		}
 		forms, err := resolve(l.Limit)
 		if err != nil {
-			return nil, nil, fmt.Errorf("Limits!%s%d: %v", ColumnLetters(3), l.Row, err)
+			return nil, nil, fmt.Errorf("Limits!C%d: %v", l.Row, err)
 		}
 		add(LimitInfo{Name: l.Name, Expression: l.Limit.Text, Source: l.Source}, l.Limit, forms)
 	}
