@@ -466,7 +466,7 @@ func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, 
 			lim := "similarity condition"
 			if j := c.Limiting[gi]; j >= 0 && j < len(c.Limits) {
 				lim = c.Limits[j].Name
-			} else if j == -2 {
+			} else if j == sweep.LimitingNone {
 				lim = ""
 			}
 			if math.IsInf(m, 0) {
