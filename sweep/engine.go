@@ -60,8 +60,10 @@ type ComboResult struct {
 	AddedMass, AddedDensity float64
 	// PoissonFlag is set when the model material's Poisson's ratio differs
 	// from the prototype's beyond the study's tolerance and the strategy
-	// does not relax transverse deformation.
+	// does not relax transverse deformation; PoissonNote (also in Notes)
+	// says so.
 	PoissonFlag bool
+	PoissonNote string
 	// Requirements are the facility capabilities the model needs at each
 	// grid scale, one per capability a limit names.
 	Requirements []Requirement
@@ -827,7 +829,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 	}
 	if note := x.poissonNote(); note != "" {
 		r.Notes = append(r.Notes, note)
-		r.PoissonFlag = true
+		r.PoissonFlag, r.PoissonNote = true, note
 	}
 	if x.cas.Correction == "ittc1957" {
 		r.Friction = x.friction(ln)
