@@ -20,12 +20,6 @@ import (
 // Tests that run the command in a child process (the test binary itself,
 // see TestMain): its peak memory, and what Ctrl-C does.
 
-// hChild starts the command in a child process.
-func hChild(t *testing.T, args ...string) (*exec.Cmd, *bytes.Buffer, *bytes.Buffer) {
-	t.Helper()
-	return hChildEnv(t, nil, args...)
-}
-
 // hChildEnv starts the command in a child process with more environment.
 func hChildEnv(t *testing.T, env []string, args ...string) (*exec.Cmd, *bytes.Buffer, *bytes.Buffer) {
 	t.Helper()
