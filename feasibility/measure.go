@@ -84,15 +84,7 @@ type ExprError struct {
 }
 
 func (e *ExprError) Error() string {
-	return fmt.Sprintf("%s %q: %s", e.Kind, exprShorten(e.Text), e.Msg)
-}
-
-func exprShorten(s string) string {
-	r := []rune(s)
-	if len(r) <= 80 {
-		return s
-	}
-	return string(r[:80]) + "…"
+	return fmt.Sprintf("%s %q: %s", e.Kind, shorten(e.Text, 80), e.Msg)
 }
 
 // Expr is a parsed measure.
@@ -194,7 +186,7 @@ func (e *Expr) Dim(dimOf func(name string) (Dimension, error)) (Dimension, error
 	}
 	d, err := e.root.dim(dimOf, map[string]Dimension{}, e.root)
 	if err != nil {
-		return Dimension{}, fmt.Errorf("expression %q: %w", exprShorten(e.text), err)
+		return Dimension{}, fmt.Errorf("expression %q: %w", shorten(e.text, 80), err)
 	}
 	return d, nil
 }
@@ -372,13 +364,13 @@ func afterLeadingNumber(r []rune, start, end int) int {
 // only when digits follow the e. It reads numbers as ParseValue does.
 func scanNumber(r []rune, i, end int) int {
 	j, digits := i, 0
-	for j < end && exprDigit(r[j]) {
+	for j < end && isDigit(r[j]) {
 		j++
 		digits++
 	}
 	if j < end && r[j] == '.' {
 		j++
-		for j < end && exprDigit(r[j]) {
+		for j < end && isDigit(r[j]) {
 			j++
 			digits++
 		}
@@ -391,8 +383,8 @@ func scanNumber(r []rune, i, end int) int {
 		if k < end && (r[k] == '+' || r[k] == '-') {
 			k++
 		}
-		if k < end && exprDigit(r[k]) {
-			for k < end && exprDigit(r[k]) {
+		if k < end && isDigit(r[k]) {
+			for k < end && isDigit(r[k]) {
 				k++
 			}
 			j = k
@@ -400,8 +392,6 @@ func scanNumber(r []rune, i, end int) int {
 	}
 	return j
 }
-
-func exprDigit(c rune) bool { return c >= '0' && c <= '9' }
 
 // exprOperatorRunes are the binary and unary operators of the expression
 // syntax.
@@ -488,14 +478,14 @@ func (l *Limit) Check(dimOf func(string) (Dimension, error)) error {
 	}
 	dl, err := l.Left.root.dim(dimOf, map[string]Dimension{}, l.Left.root)
 	if err != nil {
-		return fmt.Errorf("limit %q: left side: %w", exprShorten(l.Text), err)
+		return fmt.Errorf("limit %q: left side: %w", shorten(l.Text, 80), err)
 	}
 	dr, err := l.Right.root.dim(dimOf, map[string]Dimension{}, l.Right.root)
 	if err != nil {
-		return fmt.Errorf("limit %q: right side: %w", exprShorten(l.Text), err)
+		return fmt.Errorf("limit %q: right side: %w", shorten(l.Text, 80), err)
 	}
 	if !dl.Equal(dr) {
-		return fmt.Errorf("limit %q: the two sides have different dimensions: %s and %s", exprShorten(l.Text), dl, dr)
+		return fmt.Errorf("limit %q: the two sides have different dimensions: %s and %s", shorten(l.Text, 80), dl, dr)
 	}
 	return nil
 }
@@ -693,7 +683,7 @@ func (n *exprNode) dim(dimOf func(string) (Dimension, error), cache map[string]D
 		if n == root {
 			return ""
 		}
-		return fmt.Sprintf(" in %q", exprShorten(n.String()))
+		return fmt.Sprintf(" in %q", shorten(n.String(), 80))
 	}
 	tooLarge := func() error {
 		return fmt.Errorf("exponents of the dimension grow too large (beyond ±%d)%s", maxExprExp, where())
@@ -972,7 +962,7 @@ func lexExpr(r []rune, start, end int) []exprTok {
 		switch {
 		case unicode.IsSpace(c):
 			i++
-		case exprDigit(c) || (c == '.' && i+1 < end && exprDigit(r[i+1])):
+		case isDigit(c) || (c == '.' && i+1 < end && isDigit(r[i+1])):
 			j := scanNumber(r, i, end)
 			text := string(r[i:j])
 			v, err := strconv.ParseFloat(text, 64)
@@ -983,7 +973,7 @@ func lexExpr(r []rune, start, end int) []exprTok {
 			i = j
 		case c == '_' || (c < utf8.RuneSelf && unicode.IsLetter(c)):
 			j := i + 1
-			for j < end && (r[j] == '_' || exprDigit(r[j]) || (r[j] < utf8.RuneSelf && unicode.IsLetter(r[j]))) {
+			for j < end && (r[j] == '_' || isDigit(r[j]) || (r[j] < utf8.RuneSelf && unicode.IsLetter(r[j]))) {
 				j++
 			}
 			toks = append(toks, exprTok{kind: tokName, pos: i, raw: string(r[i:j])})
@@ -1022,7 +1012,7 @@ func lexExpr(r []rune, start, end int) []exprTok {
 				continue
 			}
 			switch {
-			case c == ',' && i > start && exprDigit(r[i-1]) && i+1 < end && exprDigit(r[i+1]):
+			case c == ',' && i > start && isDigit(r[i-1]) && i+1 < end && isDigit(r[i+1]):
 				return errTok(i, "unexpected \",\" at column %d (write the decimal separator as a point)", i+1)
 			case c == '<' || c == '>' || c == '=' || c == '≤' || c == '≥':
 				return errTok(i, "unexpected %q at column %d (a comparison belongs in a limit, not in an expression)", string(c), i+1)

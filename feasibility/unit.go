@@ -266,7 +266,7 @@ func ParseUnit(s string) (Unit, error) {
 		return Unit{}, errors.New("empty unit")
 	}
 	if n := utf8.RuneCountInString(text); n > maxUnitRunes {
-		return Unit{}, &UnitError{Text: shorten(text), Msg: fmt.Sprintf("too long (%d characters, at most %d)", n, maxUnitRunes)}
+		return Unit{}, &UnitError{Text: shorten(text, 40), Msg: fmt.Sprintf("too long (%d characters, at most %d)", n, maxUnitRunes)}
 	}
 	p := &unitParser{text: text, r: []rune(text)}
 	v, err := p.parseExpr()
@@ -288,14 +288,6 @@ func ParseUnit(s string) (Unit, error) {
 		u.Offset = v.offset
 	}
 	return u, nil
-}
-
-func shorten(s string) string {
-	r := []rune(s)
-	if len(r) <= 40 {
-		return s
-	}
-	return string(r[:40]) + "…"
 }
 
 func (p *unitParser) peek(off int) rune {
@@ -474,8 +466,6 @@ func (p *unitParser) parseTerm() (uval, error) {
 	}
 	return p.power(v, exp, start)
 }
-
-func isDigit(r rune) bool { return r >= '0' && r <= '9' }
 
 func isSuperscript(r rune) bool {
 	return superscriptASCII(r) != 0
@@ -747,7 +737,7 @@ func ParseValue(s string) (float64, Unit, error) {
 		return 0, Unit{}, errors.New("empty value")
 	}
 	if n := utf8.RuneCountInString(text); n > maxValueRunes {
-		return 0, Unit{}, fmt.Errorf("value %q is too long (%d characters, at most %d)", shorten(text), n, maxValueRunes)
+		return 0, Unit{}, fmt.Errorf("value %q is too long (%d characters, at most %d)", shorten(text, 40), n, maxValueRunes)
 	}
 	i := 0
 	neg := false

@@ -680,3 +680,17 @@ func TestUnitFilesGofmt(t *testing.T) {
 		}
 	}
 }
+
+// TestShorten: user text quoted in an error is cut to n characters (not
+// bytes) and an ellipsis.
+func TestShorten(t *testing.T) {
+	for _, c := range []struct {
+		s    string
+		n    int
+		want string
+	}{{"short", 40, "short"}, {"abcdef", 3, "abc…"}, {"ééééé", 2, "éé…"}, {"abc", 3, "abc"}} {
+		if got := shorten(c.s, c.n); got != c.want {
+			t.Errorf("shorten(%q, %d) = %q, want %q", c.s, c.n, got, c.want)
+		}
+	}
+}

@@ -235,7 +235,7 @@ func parseCondition(part string) (Condition, float64, error) {
 			return "", 0, fmt.Errorf("%s is dimensionless (unit %q is not)", k, u.Text)
 		case k == Salinity && bare && v > 0 && v < 1:
 			// S=0.035 is a fraction written without its unit, not 0.035 g/kg.
-			return "", 0, fmt.Errorf("S=%s: a bare salinity is read in g/kg, and %s g/kg is fresh water; for a fraction write S=%s%% or S=%sg/kg (or S=%sg/kg if you do mean grams per kilogram)",
+			return "", 0, fmt.Errorf("salinity S=%s: a bare salinity is read in g/kg, and %s g/kg is fresh water; for a fraction write S=%s%% or S=%sg/kg (or S=%sg/kg if you do mean grams per kilogram)",
 				num(v), num(v), num(v*100), num(v*1000), num(v))
 		case k == Salinity && bare:
 			v *= 1e-3 // S=35 means 35 g/kg

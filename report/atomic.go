@@ -1,16 +1,16 @@
 package report
 
 import (
-	"fmt"
 	"io"
-	"os"
-	"path/filepath"
 	"strings"
+
+	"scaleplan/sweep"
 )
 
 // partialMark is in the name of every temporary file an output is written
-// to before it is renamed into place; nothing else carries it.
-const partialMark = ".partial-"
+// to before it is renamed into place, and of the staging folders of
+// WriteStudy; nothing else carries it.
+const partialMark = sweep.PartialMark
 
 // IsPartial reports whether a file name is one of the temporary files
 // WriteFileAtomic writes through (a leftover of a run that was killed).
@@ -19,39 +19,10 @@ func IsPartial(name string) bool {
 }
 
 // WriteFileAtomic writes a file through a temporary file in the same
-// folder and renames it into place when complete, so an interrupted run
-// never leaves a half-written output. On any error, and on a panic in
-// write, the temporary file is removed and the target is left as it was.
-func WriteFileAtomic(path string, write func(io.Writer) error) (err error) {
-	dir := filepath.Dir(path)
-	tmp, err := os.CreateTemp(dir, "."+filepath.Base(path)+partialMark+"*")
-	if err != nil {
-		return fmt.Errorf("writing %s: %v", path, err)
-	}
-	done := false
-	defer func() {
-		if !done { // an error, or a panic on its way up
-			tmp.Close()
-			os.Remove(tmp.Name())
-		}
-	}()
-	if err = write(tmp); err != nil {
-		return fmt.Errorf("writing %s: %v", path, err)
-	}
-	if err = tmp.Sync(); err != nil {
-		return fmt.Errorf("writing %s: %v", path, err)
-	}
-	if err = tmp.Close(); err != nil {
-		return fmt.Errorf("writing %s: %v", path, err)
-	}
-	// os.CreateTemp makes the file private (0600); an output is an
-	// ordinary file.
-	if err = os.Chmod(tmp.Name(), 0o644); err != nil {
-		return fmt.Errorf("writing %s: %v", path, err)
-	}
-	if err = os.Rename(tmp.Name(), path); err != nil {
-		return fmt.Errorf("writing %s: %v", path, err)
-	}
-	done = true
-	return nil
+// folder and renames it into place when complete (sweep.WriteFileAtomic,
+// the one atomic writer): an interrupted run never leaves a half-written
+// output. On any error, and on a panic in write, the temporary file is
+// removed and the target is left as it was.
+func WriteFileAtomic(path string, write func(io.Writer) error) error {
+	return sweep.WriteFileAtomic(path, write)
 }

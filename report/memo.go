@@ -116,10 +116,8 @@ func Memo(res *sweep.Result) string {
 			fmt.Fprintf(b, "- Added mass: dummy weights must raise the model material's density by %s kg/m³, %s kg in total at the recommended scale.\n",
 				Num3(rec.AddedDensity), Num3(rec.AddedMass))
 		}
-		for _, n := range rec.Notes {
-			if strings.HasPrefix(n, "Poisson") {
-				fmt.Fprintf(b, "- %s.\n", n)
-			}
+		if rec.PoissonFlag {
+			fmt.Fprintf(b, "- %s.\n", rec.PoissonNote)
 		}
 		b.WriteString("\n## Prediction rules\n\n")
 		b.WriteString("A model measurement times the multiplier gives the prototype value.\n")

@@ -116,7 +116,19 @@ func wbCheckMemo(t *testing.T, memo string, res *sweep.Result, sum wbSummary) {
 
 	// The recommendation.
 	rec := wbMemoSection(t, memo, "Recommendation")
-	best := wbRecommended(res)
+	name, ok := wbRecommended[res.Name]
+	if !ok {
+		t.Fatalf("no recommendation worked out by hand for study %q", res.Name)
+	}
+	var best *sweep.StrategyResult
+	for _, sr := range res.Strategies {
+		if sr.Name == name {
+			best = sr
+		}
+	}
+	if name != "" && (best == nil || best.Best == nil) {
+		t.Fatalf("study %q: strategy %q, recommended by hand, has no feasible scale", res.Name, name)
+	}
 	if best == nil {
 		if !strings.Contains(rec, "No strategy has a feasible scale") {
 			t.Errorf("no strategy is feasible, but the memo recommends:\n%s", rec)

@@ -1,8 +1,11 @@
 package report
 
 import (
+	"fmt"
 	"image/color"
 	"math"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // The margin palette of the feasibility maps.
@@ -76,4 +79,58 @@ func MarginColor(m float64) color.NRGBA {
 // MarginColors returns the class colours, most infeasible first.
 func MarginColors() []color.NRGBA {
 	return append([]color.NRGBA(nil), marginColors...)
+}
+
+// The workbook's map sheets colour their margin cells with the same
+// classes and colours (marginBin, marginStyles).
+
+// marginBin is the index in marginStyles of a margin's cell style: its
+// palette class, or the last style (no data) for NaN.
+func marginBin(m float64) int {
+	if k := MarginClass(m); k >= 0 {
+		return k
+	}
+	return len(marginColors)
+}
+
+// marginStyles adds one cell style per palette class to f, then one for
+// no data: the class colour as fill, white text on the dark classes (CIE
+// L* under 50) and black text on the others, two decimals.
+func marginStyles(f *excelize.File) ([]int, error) {
+	fills := append(MarginColors(), noDataColor)
+	ids := make([]int, len(fills))
+	for i, c := range fills {
+		font := &excelize.Font{Color: "000000"}
+		if lightness(c) < 50 {
+			font.Color = "FFFFFF"
+		}
+		id, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{hexColor(c)}}, Font: font, NumFmt: 2})
+		if err != nil {
+			return nil, err
+		}
+		ids[i] = id
+	}
+	return ids, nil
+}
+
+// hexColor writes a colour as RRGGBB, as spreadsheets store fills.
+func hexColor(c color.NRGBA) string {
+	return fmt.Sprintf("%02X%02X%02X", c.R, c.G, c.B)
+}
+
+// lightness is the CIE L* of an sRGB colour (D65; IEC 61966-2-1 for the
+// transfer curve, CIE 15 for L*).
+func lightness(c color.NRGBA) float64 {
+	lin := func(v uint8) float64 {
+		x := float64(v) / 255
+		if x <= 0.04045 {
+			return x / 12.92
+		}
+		return math.Pow((x+0.055)/1.055, 2.4)
+	}
+	y := 0.2126*lin(c.R) + 0.7152*lin(c.G) + 0.0722*lin(c.B)
+	if y > 216.0/24389 {
+		return 116*math.Cbrt(y) - 16
+	}
+	return 24389.0 / 27 * y
 }

@@ -351,14 +351,12 @@ func sampleIndices(n, max int) []int {
 func bucketMax(vals []float64, idx []int) []float64 {
 	out := make([]float64, len(idx))
 	for k, i := range idx {
-		a, b := i, i+1
+		a, b := i, len(vals)
 		if k > 0 {
 			a = (idx[k-1] + i + 1) / 2
 		}
 		if k < len(idx)-1 {
 			b = (i + idx[k+1] + 1) / 2
-		} else {
-			b = len(vals)
 		}
 		m := math.NaN()
 		for j := a; j < b && j < len(vals); j++ {

@@ -255,9 +255,7 @@ func TestContourData(t *testing.T) {
 	// so the interpolated crossings are exact to float noise.
 	u, v := (&contourPlotter{cm: cm}).coords()
 	z := make([][]float64, len(cm.Z))
-	for j := range cm.Z {
-		z[j] = cm.Z[j]
-	}
+	copy(z, cm.Z)
 	lines := isolines(u, v, z, 0)
 	if len(lines) == 0 {
 		t.Fatal("no zero contour")

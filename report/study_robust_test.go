@@ -12,7 +12,6 @@ import (
 	"strings"
 	"sync/atomic"
 	"testing"
-	"time"
 	"unicode/utf8"
 
 	"scaleplan/materials"
@@ -273,20 +272,26 @@ func TestWriteFileAtomicFailure(t *testing.T) {
 	}
 }
 
-// TestInterruptLargeBatch starts a large synthetic batch (the tug study
-// with 200,000 grid points, four times over, after two small studies),
-// cancels it while it sweeps, the way Ctrl-C does in scaleplan run, and
-// writes the outcomes as the command does: the batch stops within seconds
-// (the combinations being swept are finished, nothing more), and the
-// output folder holds no temporary file and no output at all.
+// TestInterruptLargeBatch runs a large batch (the tug study with 200,000
+// grid points, four times over, after two small studies), cancels it
+// while it sweeps, the way Ctrl-C does in scaleplan run, and writes the
+// outcomes as the command does: every large study stops without a
+// result, and the output folder holds no temporary file and no output at
+// all.
 //
-// Ctrl-C waits for the combinations being swept: at 200,000 points one
-// takes about 2 s; at 2,000,000 points about 20 s (the engine checks the
-// context between combinations only).
+// The cancel comes at a known point, not after a delay: at the third
+// check of the context after the first large study was loaded. A large
+// study checks its context more often than that before it can finish
+// (after preparing, before each combination, every 65,536 points of a
+// sampled limit), so none of the four can finish first.
 func TestInterruptLargeBatch(t *testing.T) {
 	if testing.Short() {
 		t.Skip("large batch")
 	}
+	parent, cancel := context.WithCancel(context.Background())
+	defer cancel()
+	ctx := &rbCancelAt{Context: parent, cancel: cancel}
+	ctx.left.Store(3)
 	var jobs []sweep.Job
 	var bases []string
 	for i, points := range []string{"", "", "200000", "200000", "200000", "200000"} {
@@ -302,6 +307,7 @@ func TestInterruptLargeBatch(t *testing.T) {
 				set := s.Settings["points"]
 				set.Value = points
 				s.Settings["points"] = set
+				ctx.armed.Store(true)
 			}
 			return s, nil
 		}})
@@ -311,20 +317,19 @@ func TestInterruptLargeBatch(t *testing.T) {
 		t.Fatal(err)
 	}
 	dir := t.TempDir()
-	ctx, cancel := context.WithCancel(context.Background())
-	defer cancel()
-	time.AfterFunc(1500*time.Millisecond, cancel)
 	outcomes := sweep.RunBatch(ctx, jobs, cat)
-	if ctx.Err() == nil {
-		t.Fatal("the batch finished before the interrupt")
+	if parent.Err() == nil {
+		t.Fatal("the batch finished without being cancelled")
 	}
 	cancelled := 0
-	for _, o := range outcomes {
+	for i, o := range outcomes {
 		if errors.Is(o.Err, context.Canceled) {
 			cancelled++
 			if o.Result != nil {
 				t.Errorf("%s: cancelled with a result", o.Name)
 			}
+		} else if i >= 2 {
+			t.Errorf("%s (200,000 points): %v, want it cancelled", o.Name, o.Err)
 		}
 		if o.Result != nil {
 			if _, err := report.WriteStudy(ctx, dir, o.Result); !errors.Is(err, context.Canceled) {
@@ -339,6 +344,22 @@ func TestInterruptLargeBatch(t *testing.T) {
 	if got := rbEntries(t, dir); len(got) != 0 {
 		t.Errorf("written after the interrupt: %v", got)
 	}
+}
+
+// rbCancelAt is a context that cancels itself at the left-th check of
+// Err once armed.
+type rbCancelAt struct {
+	context.Context
+	cancel context.CancelFunc
+	armed  atomic.Bool
+	left   atomic.Int64
+}
+
+func (c *rbCancelAt) Err() error {
+	if c.armed.Load() && c.left.Add(-1) == 0 {
+		c.cancel()
+	}
+	return c.Context.Err()
 }
 
 // TestWriteStudyTwiceIdentical: the same study gives byte-identical

@@ -197,22 +197,22 @@ func wbCombos(sr *sweep.StrategyResult) []*sweep.ComboResult {
 	return append(append([]*sweep.ComboResult(nil), sr.Combos...), sr.Joint...)
 }
 
-// wbRecommended picks the recommended strategy by the rule of the spec
-// (§8): the best option that allows the largest model (smallest kL), or
-// the cheapest when the study asks for it; the first strategy wins a tie.
-func wbRecommended(res *sweep.Result) *sweep.StrategyResult {
-	var best *sweep.StrategyResult
-	cheapest := res.Plan.Settings.Recommend == "cheapest"
-	for _, sr := range res.Strategies {
-		c := sr.Best
-		if c == nil {
-			continue
-		}
-		if best == nil ||
-			(cheapest && c.Cost < best.Best.Cost) ||
-			(!cheapest && c.Recommended < best.Best.Recommended) {
-			best = sr
-		}
-	}
-	return best
+// wbRecommended is the strategy each built-in scenario's memo must
+// recommend, worked out by hand from the strategies' recommended scales by
+// the rule of the spec (§8): every scenario asks for the largest model, so
+// the smallest recommended kL wins and the first strategy wins a tie ("" if
+// none is feasible).
+//   - harbour-tug: complete none; Froude 1:11.4; substitute 1:11.4 (tie).
+//   - sloped-pier: geometric none; tuned ice 1:8.75; distorted 1:8.46.
+//   - subsoiler-tine: joint cases 1:1.73; centrifuge 1:6.
+//   - iced-conductor: one strategy, 1:0.833.
+//   - telecom-mast: added mass 1:2.5; softer material 1:2.5 (tie).
+//   - pontoon-bridge: segmented 1:13.3; one-piece 1:13.3 (tie).
+var wbRecommended = map[string]string{
+	"harbour-tug":    "Froude scaling",
+	"sloped-pier":    "distorted thickness",
+	"subsoiler-tine": "sand and clay cases",
+	"iced-conductor": "spring-mounted section",
+	"telecom-mast":   "added mass",
+	"pontoon-bridge": "segmented with backbone",
 }

@@ -466,7 +466,7 @@ func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, 
 			lim := "similarity condition"
 			if j := c.Limiting[gi]; j >= 0 && j < len(c.Limits) {
 				lim = c.Limits[j].Name
-			} else if j == -2 {
+			} else if j == sweep.LimitingNone {
 				lim = ""
 			}
 			if math.IsInf(m, 0) {
@@ -618,40 +618,6 @@ func writeInputs(f *excelize.File, res *sweep.Result, bold int) error {
 		return err
 	}
 	return s.close(false)
-}
-
-// marginEdges are the bin edges of the map colour scale, in decades.
-var marginEdges = []float64{-1, -0.5, -0.2, 0, 0.2, 0.5, 1}
-
-// mapColors is our colour scale for margins: oranges for infeasible
-// points, blues for feasible ones, light near the boundary. Orange against
-// blue stays distinct for the common red–green colour-vision deficiencies,
-// and the lightness steps read in grey print too.
-var mapColors = []string{"C4511B", "E3894F", "F2BE94", "FBE3CF", "D6E4F0", "9FC3DE", "5B95C4", "2A5F96"}
-
-func marginBin(m float64) int {
-	for i, e := range marginEdges {
-		if m < e {
-			return i
-		}
-	}
-	return len(marginEdges)
-}
-
-func marginStyles(f *excelize.File) ([]int, error) {
-	ids := make([]int, len(mapColors))
-	for i, c := range mapColors {
-		font := &excelize.Font{Color: "000000"}
-		if i == 0 || i == len(mapColors)-1 || i == len(mapColors)-2 {
-			font.Color = "FFFFFF"
-		}
-		id, err := f.NewStyle(&excelize.Style{Fill: excelize.Fill{Type: "pattern", Pattern: 1, Color: []string{c}}, Font: font, NumFmt: 2})
-		if err != nil {
-			return nil, err
-		}
-		ids[i] = id
-	}
-	return ids, nil
 }
 
 // requirementLabel names a requirement column.

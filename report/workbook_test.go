@@ -546,21 +546,33 @@ func wbCheckLimits(t *testing.T, rows [][]string, res *sweep.Result) {
 }
 
 // wbCheckInputs checks that the Inputs sheet echoes every sheet of the
-// study with one row per input row.
+// study under its column names (written out here as the study layout of
+// the spec and README has them, not taken from the code's table) with one
+// row per input row.
 func wbCheckInputs(t *testing.T, rows [][]string, res *sweep.Result) {
 	t.Helper()
 	in := res.Plan.Study
 	want := []struct {
 		sheet string
 		n     int
-	}{{"Study", len(in.Settings)}, {"Prototype", len(in.Prototype)}, {"Media", len(in.Media)},
-		{"Materials", len(in.Materials)}, {"Custom", len(in.Custom)}, {"Facilities", len(in.Facilities)},
-		{"Strategies", len(in.Strategies)}, {"Limits", len(in.Limits)}, {"Costs", len(in.Costs)}}
+		cols  string
+	}{{"Study", len(in.Settings), "setting value unit note"},
+		{"Prototype", len(in.Prototype), "item value unit scales_as note"},
+		{"Media", len(in.Media), "name library_entry conditions note"},
+		{"Materials", len(in.Materials), "name library_entry conditions note"},
+		{"Custom", len(in.Custom), "entry kind property value unit source"},
+		{"Facilities", len(in.Facilities), "facility type capability value unit note"},
+		{"Strategies", len(in.Strategies), "strategy case technique retain relax untie given tuned fix media materials facilities correction note"},
+		{"Limits", len(in.Limits), "applies_to limit expression source"},
+		{"Costs", len(in.Costs), "item coefficient per measure facility note"}}
 	for _, w := range want {
 		h := slices.IndexFunc(rows, func(r []string) bool { return wbAt(r, 0) == "sheet "+w.sheet })
 		if h < 0 {
 			t.Errorf("Inputs: the %s sheet of the study is not echoed", w.sheet)
 			continue
+		}
+		if got := strings.Join(slices.DeleteFunc(slices.Clone(rows[h][1:]), func(s string) bool { return s == "" }), " "); got != w.cols {
+			t.Errorf("Inputs: the %s sheet is echoed under the columns %q, want %q", w.sheet, got, w.cols)
 		}
 		n := 0
 		for _, r := range rows[h+1:] {

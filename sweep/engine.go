@@ -60,8 +60,10 @@ type ComboResult struct {
 	AddedMass, AddedDensity float64
 	// PoissonFlag is set when the model material's Poisson's ratio differs
 	// from the prototype's beyond the study's tolerance and the strategy
-	// does not relax transverse deformation.
+	// does not relax transverse deformation; PoissonNote (also in Notes)
+	// says so.
 	PoissonFlag bool
+	PoissonNote string
 	// Requirements are the facility capabilities the model needs at each
 	// grid scale, one per capability a limit names.
 	Requirements []Requirement
@@ -84,9 +86,9 @@ type ComboResult struct {
 	// than the length scale (given properties, fixed free choices).
 	Params feasibility.Values
 	// Margins holds the margin of every grid point (decades) and Limiting
-	// the index into Limits of the limit that gives it (-1 for a
-	// similarity condition); with a second axis, AxisMargins holds one
-	// row per axis value.
+	// the index into Limits of the limit that gives it (LimitingSimilarity
+	// for a similarity condition, LimitingNone for none); with a second
+	// axis, AxisMargins holds one row per axis value.
 	Margins     []float64
 	Limiting    []int
 	AxisMargins [][]float64
@@ -433,7 +435,7 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 		}
 		forms, err := resolve(l.Limit)
 		if err != nil {
-			return nil, nil, fmt.Errorf("Limits!%s%d: %v", ColumnLetters(3), l.Row, err)
+			return nil, nil, fmt.Errorf("Limits!C%d: %v", l.Row, err)
 		}
 		add(LimitInfo{Name: l.Name, Expression: l.Limit.Text, Source: l.Source}, l.Limit, forms)
 	}
@@ -542,10 +544,10 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	marginGrid(limits, us, out.margins, out.limiting)
 	for i, u := range us {
 		if condFails != "" && math.IsNaN(condU) {
-			out.margins[i], out.limiting[i] = math.Inf(-1), -1
+			out.margins[i], out.limiting[i] = math.Inf(-1), LimitingSimilarity
 		} else if !math.IsNaN(condU) {
 			if v := -math.Abs(u - condU); v < out.margins[i] {
-				out.margins[i], out.limiting[i] = v, -1
+				out.margins[i], out.limiting[i] = v, LimitingSimilarity
 			}
 		}
 	}
@@ -569,10 +571,11 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 }
 
 // marginGrid sets m[i] to the smallest margin of the limits at us[i] and
-// arg[i] to the index of the limit that gives it (-2 when there is none).
+// arg[i] to the index of the limit that gives it (LimitingNone when there
+// is none).
 func marginGrid(limits []compiled, us, m []float64, arg []int) {
 	for i := range m {
-		m[i], arg[i] = math.Inf(1), -2
+		m[i], arg[i] = math.Inf(1), LimitingNone
 	}
 	for j := range limits {
 		l := &limits[j]
@@ -826,7 +829,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 	}
 	if note := x.poissonNote(); note != "" {
 		r.Notes = append(r.Notes, note)
-		r.PoissonFlag = true
+		r.PoissonFlag, r.PoissonNote = true, note
 	}
 	if x.cas.Correction == "ittc1957" {
 		r.Friction = x.friction(ln)

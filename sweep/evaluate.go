@@ -35,12 +35,12 @@ type combo struct {
 	// pert multiplies inputs for one draw of the uncertain inputs (nil
 	// for the nominal values); candFactor is the factor on the model's
 	// own value of each property, from the candidate that supplies it.
-	pert       map[string]float64
+	pert       map[inputKey]float64
 	candFactor map[string]float64
 }
 
 // factor returns the multiplier a draw puts on an input (1 when none).
-func (x *combo) factor(key string) float64 {
+func (x *combo) factor(key inputKey) float64 {
 	if f, ok := x.pert[key]; ok {
 		return f
 	}
@@ -50,7 +50,7 @@ func (x *combo) factor(key string) float64 {
 // proto is the prototype value of a property, as drawn.
 func (x *combo) proto(q string) (float64, bool) {
 	v, ok := x.plan.Proto[q]
-	return v * x.factor("proto:"+q), ok
+	return v * x.factor(inputKey{inputProto, "", q}), ok
 }
 
 // newCombo fixes every parameter of the case's solution for a candidate
@@ -61,13 +61,13 @@ func (p *Plan) newCombo(c *PlanCase, medium, material *Candidate2, fac *Facility
 
 // newComboDrawn is newCombo with the inputs multiplied as one draw of the
 // uncertain inputs says.
-func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Facility, axis float64, pert map[string]float64) (*combo, error) {
+func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Facility, axis float64, pert map[inputKey]float64) (*combo, error) {
 	x := &combo{plan: p, cas: c, medium: medium, material: material, fac: fac, axis: axis,
 		values: feasibility.Values{}, props: map[string]materials.Property{}, caps: map[string]float64{}, gEnv: StandardGravity,
 		pert: pert, candFactor: map[string]float64{}}
 	if fac != nil {
 		for k, v := range fac.Caps {
-			x.caps[k] = v * x.factor("cap:"+fac.Name+":"+k)
+			x.caps[k] = v * x.factor(inputKey{inputCapability, fac.Name, k})
 		}
 	}
 	ax := p.Settings.Axis
@@ -102,7 +102,7 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 			}
 		}
 		for q, pr := range props {
-			f := x.factor("cand:" + cand.Name + ":" + q)
+			f := x.factor(inputKey{inputCandidate, cand.Name, q})
 			pr.Value *= f
 			x.props[q] = pr // the medium, set last, wins
 			x.candFactor[q] = f
@@ -181,7 +181,7 @@ func (x *combo) lnK(q string) (linForm, bool) {
 func (x *combo) form(name string) (linForm, error) {
 	p := x.plan
 	if it, ok := p.Items[name]; ok {
-		v := it.Value * x.factor("item:"+name)
+		v := it.Value * x.factor(inputKey{inputItem, "", name})
 		if it.ScalesAs == "" {
 			return linForm{C: math.Log(v)}, nil
 		}

@@ -335,14 +335,13 @@ func workbook(t testing.TB, s *Study, edit func(f *excelize.File)) []byte {
 }
 
 // loadBytes writes an .xlsx file and loads it.
-func loadBytes(t *testing.T, b []byte) (*Study, error, string) {
+func loadBytes(t *testing.T, b []byte) (*Study, error) {
 	t.Helper()
 	p := filepath.Join(t.TempDir(), "s.xlsx")
 	if err := os.WriteFile(p, b, 0o644); err != nil {
 		t.Fatal(err)
 	}
-	s, err := Load(p)
-	return s, err, p
+	return Load(p)
 }
 
 // rezip rewrites a zip archive, passing each entry through edit, which
@@ -541,7 +540,7 @@ func TestLoadXLSXProblems(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			s, err, _ := loadBytes(t, tt.file(t))
+			s, err := loadBytes(t, tt.file(t))
 			if s == nil {
 				t.Fatalf("no study returned: %v", err)
 			}
@@ -569,7 +568,7 @@ func TestLoadXLSXCachedFormula(t *testing.T) {
 		}
 		return []byte(s)
 	})
-	s, err, _ := loadBytes(t, b)
+	s, err := loadBytes(t, b)
 	checkProblems(t, err, nil)
 	n := len(s.Prototype)
 	got := s.Prototype[n-2:]
@@ -590,7 +589,7 @@ func TestLoadXLSXRawNumbers(t *testing.T) {
 		f.SetCellFloat("Costs", "B3", 0.00089, -1, 64)
 		f.SetCellStyle("Costs", "B3", "B3", short)
 	})
-	s, err, _ := loadBytes(t, b)
+	s, err := loadBytes(t, b)
 	checkProblems(t, err, nil)
 	if s.Costs[0].Coefficient != "1234.5678" || s.Costs[1].Coefficient != "0.00089" {
 		t.Errorf("coefficients %q %q", s.Costs[0].Coefficient, s.Costs[1].Coefficient)

@@ -20,8 +20,8 @@ var Distributions = []string{"normal", "lognormal", "uniform"}
 // Uncertain is an input of the study that varies: its nominal value is
 // multiplied, draw by draw, by a factor with a mean (or median) of one.
 type Uncertain struct {
-	Label        string // as the report names it
-	key          string // what it multiplies
+	Label        string   // as the report names it
+	key          inputKey // what it multiplies
 	Distribution string
 	// Rel is the coefficient of variation (normal, lognormal) or the
 	// relative half-width (uniform).
@@ -44,12 +44,11 @@ func (u *Uncertain) draw(src rand.Source) float64 {
 
 // applies reports whether the input can change a combination.
 func (u *Uncertain) applies(x *combo) bool {
-	parts := strings.SplitN(u.key, ":", 3)
-	switch parts[0] {
-	case "cand":
-		return (x.medium != nil && x.medium.Name == parts[1]) || (x.material != nil && x.material.Name == parts[1])
-	case "cap":
-		return x.fac != nil && x.fac.Name == parts[1]
+	switch u.key.kind {
+	case inputCandidate:
+		return (x.medium != nil && x.medium.Name == u.key.owner) || (x.material != nil && x.material.Name == u.key.owner)
+	case inputCapability:
+		return x.fac != nil && x.fac.Name == u.key.owner
 	}
 	return true
 }
@@ -72,7 +71,7 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 				ps.Add(At("Uncertainty", r.Row, "input"), "no prototype item %q%s (name a candidate or a facility in the of column for their inputs)", in, feasibility.Suggest(in, p.ItemOrder))
 				continue
 			}
-			u.key, u.Label, nominal, dim = "item:"+in, in, it.Value, it.Dim
+			u.key, u.Label, nominal, dim = inputKey{inputItem, "", in}, in, it.Value, it.Dim
 		case of == "prototype":
 			v, ok := p.Proto[in]
 			if !ok {
@@ -80,7 +79,7 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 				continue
 			}
 			q, _ := feasibility.QuantityNamed(in)
-			u.key, u.Label, nominal, dim = "proto:"+in, "prototype "+in, v, q.Dim
+			u.key, u.Label, nominal, dim = inputKey{inputProto, "", in}, "prototype "+in, v, q.Dim
 		default:
 			found := false
 			for _, c := range append(append([]*Candidate2(nil), p.Media...), p.Materials...) {
@@ -92,7 +91,7 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 						break
 					}
 					q, _ := feasibility.QuantityNamed(in)
-					u.key, u.Label, nominal, dim, found = "cand:"+of+":"+in, in+" of "+of, pr.Value, q.Dim, true
+					u.key, u.Label, nominal, dim, found = inputKey{inputCandidate, of, in}, in+" of "+of, pr.Value, q.Dim, true
 				}
 			}
 			if f := p.facility(of); !found && f != nil {
@@ -102,13 +101,13 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 					continue
 				}
 				cp, _ := p.Catalog.Capability(f.Type, in)
-				u.key, u.Label, nominal, dim, found = "cap:"+of+":"+in, in+" of "+of, v, cp.Dim, true
+				u.key, u.Label, nominal, dim, found = inputKey{inputCapability, of, in}, in+" of "+of, v, cp.Dim, true
 			}
 			if !found {
 				ps.Add(At("Uncertainty", r.Row, "of"), "%q is neither blank (a prototype item), prototype, a candidate nor a facility", of)
 				continue
 			}
-			if u.key == "" {
+			if u.key == (inputKey{}) {
 				continue
 			}
 		}
@@ -195,7 +194,7 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 	nl := len(o.limits)
 	sens := make([][]float64, len(inputs)) // [input][limit] change of A per decade
 	for i, u := range inputs {
-		y, err := p.newComboDrawn(x.cas, x.medium, x.material, x.fac, x.axis, map[string]float64{u.key: 10})
+		y, err := p.newComboDrawn(x.cas, x.medium, x.material, x.fac, x.axis, map[inputKey]float64{u.key: 10})
 		if err != nil {
 			continue
 		}

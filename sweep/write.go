@@ -160,7 +160,7 @@ func WriteCSV(dir string, s *Study) error {
 		if err != nil {
 			return fmt.Errorf("sheet %s: %w", sheet, err)
 		}
-		if err := writeAtomic(filepath.Join(dir, sheet+".csv"), func(w io.Writer) error {
+		if err := WriteFileAtomic(filepath.Join(dir, sheet+".csv"), func(w io.Writer) error {
 			_, err := w.Write(data)
 			return err
 		}); err != nil {
@@ -168,38 +168,6 @@ func WriteCSV(dir string, s *Study) error {
 		}
 	}
 	return nil
-}
-
-// writeAtomic writes a file through a temporary file in the same folder,
-// renamed over the target only when complete.
-func writeAtomic(p string, write func(io.Writer) error) (err error) {
-	dir, base := filepath.Split(p)
-	if dir == "" {
-		dir = "."
-	}
-	tmp, err := os.CreateTemp(dir, "."+base+".*.tmp")
-	if err != nil {
-		return err
-	}
-	defer func() {
-		if err != nil {
-			tmp.Close()
-			os.Remove(tmp.Name())
-		}
-	}()
-	if err = write(tmp); err != nil {
-		return err
-	}
-	if err = tmp.Sync(); err != nil {
-		return err
-	}
-	if err = tmp.Close(); err != nil {
-		return err
-	}
-	if err = os.Chmod(tmp.Name(), 0o644); err != nil {
-		return err
-	}
-	return os.Rename(tmp.Name(), p)
 }
 
 // Lists are the names the drop-down lists of a written workbook offer.
@@ -235,7 +203,7 @@ func WriteXLSX(p string, s *Study, lists Lists) error {
 	if err := buildWorkbook(f, s, lists); err != nil {
 		return err
 	}
-	return writeAtomic(p, func(w io.Writer) error { return f.Write(w) })
+	return WriteFileAtomic(p, func(w io.Writer) error { return f.Write(w) })
 }
 
 // plainNumber reports whether v is a plain decimal number that excelize

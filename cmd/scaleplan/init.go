@@ -60,9 +60,9 @@ func initCommand() *cli.Command {
 				}
 			}
 			if strings.HasSuffix(strings.ToLower(path), ".xlsx") {
-				lists, err := templateLists()
-				if err != nil {
-					return err
+				lists, lerr := templateLists()
+				if lerr != nil {
+					return lerr
 				}
 				err = sweep.WriteXLSX(path, s, lists)
 			} else {

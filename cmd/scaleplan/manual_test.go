@@ -54,23 +54,7 @@ func TestManualExamples(t *testing.T) {
 			if code != 0 {
 				t.Fatalf("exit %d: %s", code, stderr.String())
 			}
-			path := goldenName(cmd)
-			if *update {
-				if err := os.MkdirAll(filepath.Dir(path), 0o755); err != nil {
-					t.Fatal(err)
-				}
-				if err := os.WriteFile(path, stdout.Bytes(), 0o644); err != nil {
-					t.Fatal(err)
-				}
-				return
-			}
-			want, err := os.ReadFile(path)
-			if err != nil {
-				t.Fatalf("%v (run go test ./cmd/scaleplan -update to create it)", err)
-			}
-			if !bytes.Equal(stdout.Bytes(), want) {
-				t.Errorf("output differs from %s:\n%s", path, stdout.String())
-			}
+			goldenCheck(t, filepath.Base(goldenName(cmd)), stdout.Bytes())
 		})
 	}
 }

@@ -3,13 +3,13 @@
 package main
 
 import (
+	"bufio"
 	"bytes"
 	"fmt"
 	"os"
 	"os/exec"
 	"path/filepath"
 	"runtime"
-	"slices"
 	"strings"
 	"testing"
 	"time"
@@ -19,12 +19,6 @@ import (
 
 // Tests that run the command in a child process (the test binary itself,
 // see TestMain): its peak memory, and what Ctrl-C does.
-
-// hChild starts the command in a child process.
-func hChild(t *testing.T, args ...string) (*exec.Cmd, *bytes.Buffer, *bytes.Buffer) {
-	t.Helper()
-	return hChildEnv(t, nil, args...)
-}
 
 // hChildEnv starts the command in a child process with more environment.
 func hChildEnv(t *testing.T, env []string, args ...string) (*exec.Cmd, *bytes.Buffer, *bytes.Buffer) {
@@ -125,47 +119,58 @@ func TestHostileMemory(t *testing.T) {
 	}
 }
 
-// TestInterruptRun sends Ctrl-C (SIGINT) to scaleplan run during a large
-// batch: it stops within seconds with exit status 1 and says so, and the
-// output folder holds no file at all: no temporary file, no half-written
-// output, and no output of the studies that had not finished.
-func TestInterruptRun(t *testing.T) {
-	if testing.Short() {
-		t.Skip("large batch")
+// hInterruptAt runs the command in a child process that pauses at a known
+// point (pauseEnv, e.g. "batch:3"), calls atPause there, sends it Ctrl-C
+// (SIGINT) and returns its exit status and all it wrote on stderr. The
+// signal goes when the child says it is paused, never after a delay.
+func hInterruptAt(t *testing.T, pause string, atPause func(), args ...string) (int, string) {
+	t.Helper()
+	cmd := exec.Command(os.Args[0], args...)
+	cmd.Env = append(os.Environ(), "SCALEPLAN_TEST_MAIN=1", pauseEnv+"="+pause)
+	pipe, err := cmd.StderrPipe()
+	if err != nil {
+		t.Fatal(err)
 	}
+	if err := cmd.Start(); err != nil {
+		t.Fatal(err)
+	}
+	var stderr strings.Builder
+	paused := false
+	lines := bufio.NewScanner(pipe)
+	for lines.Scan() {
+		stderr.WriteString(lines.Text() + "\n")
+		if !paused && strings.HasPrefix(lines.Text(), pausedLine) {
+			paused = true
+			atPause()
+			if err := cmd.Process.Signal(os.Interrupt); err != nil {
+				t.Fatal(err)
+			}
+		}
+	}
+	code := hExit(t, cmd)
+	if !paused {
+		t.Fatalf("the run never paused at %s: exit %d, stderr %s", pause, code, stderr.String())
+	}
+	return code, stderr.String()
+}
+
+// TestInterruptRun sends Ctrl-C (SIGINT) to scaleplan run while it sweeps
+// a batch of four studies (at the third check for an interrupt, so inside
+// the batch): it stops with exit status 1 and says so, and the output
+// folder holds no file at all: no temporary file, no half-written output,
+// and no output of the studies that had finished. (How soon a running
+// study stops after the interrupt is report.TestInterruptLargeBatch.)
+func TestInterruptRun(t *testing.T) {
 	dir := t.TempDir()
 	var studies []string
 	for _, name := range []string{"a", "b", "c", "d"} {
 		s := hTugCSV(t, dir, name)
-		hSet(t, s, "Study", "name", "value", "big-"+name)
-		hSet(t, s, "Study", "points", "value", "200000")
+		hSet(t, s, "Study", "name", "value", "study-"+name)
 		studies = append(studies, s)
 	}
 	out := filepath.Join(dir, "out")
-	cmd, _, stderr := hChild(t, append(append([]string{"run"}, studies...), "--out", out)...)
-	// Wait until the batch runs (the output folder is made just before).
-	for i := 0; i < 100; i++ {
-		if _, err := os.Stat(out); err == nil {
-			break
-		}
-		time.Sleep(20 * time.Millisecond)
-	}
-	time.Sleep(1500 * time.Millisecond)
-	if err := cmd.Process.Signal(os.Interrupt); err != nil {
-		t.Fatal(err)
-	}
-	sent := time.Now()
-	done := make(chan int, 1)
-	go func() { done <- hExit(t, cmd) }()
-	var code int
-	select {
-	case code = <-done:
-	case <-time.After(60 * time.Second):
-		cmd.Process.Kill()
-		t.Fatal("scaleplan run did not stop within 60 s of Ctrl-C")
-	}
-	t.Logf("stopped %.1f s after Ctrl-C", time.Since(sent).Seconds())
-	if code != 1 || !strings.Contains(stderr.String(), "scaleplan: interrupted: 0 of 4 studies were written") {
+	code, stderr := hInterruptAt(t, "batch:3", func() {}, append(append([]string{"run"}, studies...), "--out", out)...)
+	if code != 1 || !strings.Contains(stderr, "scaleplan: interrupted: 0 of 4 studies were written") {
 		t.Errorf("exit %d, stderr %q", code, stderr)
 	}
 	// The folder is made only when a study is written, so it may not
@@ -192,42 +197,32 @@ func TestBaselineMemory(t *testing.T) {
 	t.Logf("peak memory %.0f MB", mb)
 }
 
-// TestInterruptRunWhileWriting sends Ctrl-C while the outputs of a large
-// study are being written (as soon as its staging folder appears): the run
-// stops with exit 1 and "interrupted", and the output folder is empty (or,
-// if the write won the race, every output is there and complete); never a
-// temporary file, never some outputs without the others.
+// TestInterruptRunWhileWriting sends Ctrl-C while the outputs of a study
+// are being written: the run pauses at the third check for an interrupt
+// while writing, when its staging folder already holds a finished output
+// (checked), and gets Ctrl-C there. It stops with exit 1 and
+// "interrupted", and the output folder is empty: no temporary file, no
+// staging folder, never some outputs without the others.
 func TestInterruptRunWhileWriting(t *testing.T) {
-	if testing.Short() {
-		t.Skip("large study")
-	}
 	dir := t.TempDir()
 	s := hTugCSV(t, dir, "tug")
-	hSet(t, s, "Study", "points", "value", "100000")
 	out := filepath.Join(dir, "out")
-	cmd, _, stderr := hChild(t, "run", s, "--out", out)
-	staging := ""
-	for deadline := time.Now().Add(60 * time.Second); staging == "" && time.Now().Before(deadline); time.Sleep(2 * time.Millisecond) {
+	code, stderr := hInterruptAt(t, "write:3", func() {
+		var staged []string
 		for _, n := range rbNames(t, out) {
 			if report.IsPartial(n) {
-				staging = n
+				staged = rbNames(t, filepath.Join(out, n))
 			}
 		}
+		if len(staged) == 0 {
+			t.Errorf("paused while writing, but no staging folder with an output in %s: %v", out, rbNames(t, out))
+		}
+	}, "run", s, "--out", out)
+	if code != 1 || !strings.Contains(stderr, "scaleplan: interrupted: 0 of 1 studies were written") {
+		t.Errorf("exit %d, stderr %q", code, stderr)
 	}
-	if staging == "" {
-		cmd.Process.Kill()
-		t.Fatal("no staging folder appeared within 60 s")
-	}
-	cmd.Process.Signal(os.Interrupt)
-	code := hExit(t, cmd)
-	got := rbNames(t, out)
-	switch {
-	case code == 1 && strings.Contains(stderr.String(), "scaleplan: interrupted: 0 of 1 studies were written") && len(got) == 0:
-		t.Logf("Ctrl-C while writing (%s): stopped, nothing written", staging)
-	case code == 0 && slices.Contains(got, "harbour-tug.memo.md") && slices.Contains(got, "harbour-tug.xlsx"):
-		t.Logf("Ctrl-C while writing (%s): came too late, the run finished", staging)
-	default:
-		t.Errorf("Ctrl-C while writing: exit %d, folder %v, stderr %s", code, got, stderr)
+	if got := rbNames(t, out); len(got) != 0 {
+		t.Errorf("the output folder holds %v after Ctrl-C", got)
 	}
 	hNoOutputs(t, dir)
 }

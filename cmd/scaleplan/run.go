@@ -71,7 +71,7 @@ func runCommand() *cli.Command {
 			// written after it (WriteStudy leaves no partial file).
 			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
 			defer stop()
-			outcomes := sweep.RunBatch(ctx, jobs, cat)
+			outcomes := sweep.RunBatch(pauseAt(ctx, "batch", c.App.ErrWriter), jobs, cat)
 			if ctx.Err() != nil {
 				return interrupted(0, len(outcomes))
 			}
@@ -82,6 +82,7 @@ func runCommand() *cli.Command {
 			var failed []string
 			written := 0
 			made := false
+			wctx := pauseAt(ctx, "write", c.App.ErrWriter)
 			for _, o := range outcomes {
 				if o.Err != nil {
 					failed = append(failed, fmt.Sprintf("%s:\n%s", o.Name, indent(o.Err.Error())))
@@ -95,7 +96,7 @@ func runCommand() *cli.Command {
 					}
 					made = true
 				}
-				files, err := report.WriteStudy(ctx, out, o.Result, format)
+				files, err := report.WriteStudy(wctx, out, o.Result, format)
 				if err != nil {
 					if ctx.Err() != nil {
 						return interrupted(written, len(outcomes))
