@@ -45,3 +45,66 @@ func (sol *Solution) fixedByGiven() map[string]bool {
 	}
 	return fixed
 }
+
+// IsDefined reports whether a quantity is defined from others (kinematic
+// viscosity = viscosity / density, flexural rigidity = modulus · area
+// moment, mass = density · length³, ...).
+func IsDefined(q string) bool {
+	for _, d := range definitions {
+		if d.Quantity == q {
+			return true
+		}
+	}
+	return false
+}
+
+// FollowsFrom reports whether a quantity is defined from quantities that
+// are each given, geometric (tied to the length, or untied and so set by
+// the model's design) or known as the caller says: E·I of a known modulus,
+// ν of a known viscosity and a given density.
+func (sol *Solution) FollowsFrom(q string, known func(string) bool) bool {
+	for _, d := range definitions {
+		if d.Quantity != q {
+			continue
+		}
+		all := true
+		for _, t := range d.Of {
+			l, _ := sol.Law(t.Quantity)
+			if l.Status == Given || slices.Contains(Untieable(), t.Quantity) || known(t.Quantity) {
+				continue
+			}
+			all = false
+		}
+		if all {
+			return true
+		}
+	}
+	return false
+}
+
+// Linked reports whether one definition joins a and b with every other
+// member fixed by the given quantities (ν and μ with ρ given; E·I and E
+// with the area moment tied): the model meets one exactly when it meets
+// the other.
+func (sol *Solution) Linked(a, b string) bool {
+	fixed := sol.fixedByGiven()
+	for _, d := range definitions {
+		members := []string{d.Quantity}
+		for _, t := range d.Of {
+			members = append(members, t.Quantity)
+		}
+		if !slices.Contains(members, a) || !slices.Contains(members, b) || a == b {
+			continue
+		}
+		ok := true
+		for _, m := range members {
+			if m != a && m != b && !fixed[m] {
+				ok = false
+			}
+		}
+		if ok {
+			return true
+		}
+	}
+	return false
+}
