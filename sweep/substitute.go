@@ -258,7 +258,12 @@ func (x *combo) bandLimit(ch check, upper bool) (compiled, error) {
 		src = fmt.Sprintf("free body: %s cannot be ballasted, so its density %s must be the prototype's %s over k_density; study tolerance %s",
 			ch.who, formatSI(ch.own, unit), formatSI(ch.protoValue, unit), pct)
 	}
-	c := newCompiled(LimitInfo{Name: name, Expression: fmt.Sprintf("%s %s %s", ch.q, op, formatSI(bound, unit)), Source: src}, l, map[string]linForm{ch.q: ch.req})
+	sign := "+"
+	if !upper {
+		sign = "−"
+	}
+	expr := fmt.Sprintf("%s needed %s %s = %s/(1 %s %s)", ch.q, op, formatSI(bound, unit), strconv.FormatFloat(ch.own, 'g', 6, 64), sign, strconv.FormatFloat(tol, 'g', 4, 64))
+	c := newCompiled(LimitInfo{Name: name, Expression: expr, Source: src}, l, map[string]linForm{ch.q: ch.req})
 	c.band = &band{check: ch, upper: upper}
 	return c, nil
 }
@@ -336,8 +341,8 @@ func (x *combo) bandFailing(limits []compiled, us []float64, condU float64) stri
 	unit := quantityUnit(ch.q)
 	var b strings.Builder
 	if ch.kind == "density" {
-		fmt.Fprintf(&b, "%s cannot be ballasted (a free body or grain), so its density must be %s at %s (the prototype's %s over k_density); it has %s",
-			ch.who, sig3(req, unit), Scale(kL), sig3(ch.protoValue, unit), sig3(ch.own, unit))
+		fmt.Fprintf(&b, "%s cannot be ballasted (a free body or grain), so its density must be %s at %s (the prototype's %s over k_density = %.3g); it has %s",
+			ch.who, sig3(req, unit), Scale(kL), sig3(ch.protoValue, unit), ch.protoValue/req, sig3(ch.own, unit))
 		if s := x.submergedText(ch, req); s != "" {
 			b.WriteString("; " + s)
 		}
