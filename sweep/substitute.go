@@ -131,7 +131,7 @@ func (x *combo) checks() (out []check, blocked string, notes []string) {
 			continue
 		}
 		own, conds, ok := x.candidateValue(c, "density")
-		if !ok {
+		if !ok || !(own > 0) {
 			blocked = fmt.Sprintf("%s cannot be ballasted (Study: unballasted) but states no density", c.Name)
 			continue
 		}
@@ -172,7 +172,8 @@ func (x *combo) checks() (out []check, blocked string, notes []string) {
 			order = append(order, q)
 		}
 	}
-	stated := func(t string) bool { return slices.Contains(sol.Required, t) && x.supplier(t) != nil }
+	required := func(t string) bool { return slices.Contains(sol.Required, t) }
+	stated := func(t string) bool { return required(t) && x.supplier(t) != nil }
 next:
 	for _, q := range order {
 		if tuned(q) {
@@ -198,12 +199,16 @@ next:
 			own, conds, _ := x.candidateValue(sup, q)
 			ch = check{kind: "match", q: q, cand: sup, who: sup.Name, own: own, conds: conds}
 		default:
-			if sol.FollowsFrom(q, stated) {
-				continue
+			if sol.FollowsFrom(q, stated) || sol.FollowsFrom(q, required) {
+				continue // judged through the property it is made of
 			}
 			if blocked == "" {
 				blocked = fmt.Sprintf("the strategy requires the model's %s and %s states none: choose a candidate that does, or give %s", q, describePair(x.medium, x.material), q)
 			}
+			continue
+		}
+		if !(ch.own > 0) || math.IsInf(ch.own, 0) {
+			notes = append(notes, fmt.Sprintf("%s of %s (%v) is not a positive value: not matched against the requirement", q, ch.who, ch.own))
 			continue
 		}
 		req, ok := x.requiredForm(q)
@@ -554,6 +559,9 @@ func (x *combo) closestEntry(ch check, others []uInterval) string {
 	}
 	var best *found
 	for _, e := range x.plan.Library.Entries() {
+		if e.Name == ch.cand.entry.Name {
+			continue // the candidate's own entry says nothing new
+		}
 		checks, ok := x.entryChecks(ch.cand, e)
 		if !ok {
 			continue

@@ -333,3 +333,72 @@ func TestUnballastedNamesCandidates(t *testing.T) {
 		t.Errorf("error %v, want the unknown name with a suggestion", err)
 	}
 }
+
+// TestSubstituteCandidateStatesNothing: a required property that no
+// candidate states leaves no window, and the reason says which.
+func TestSubstituteCandidateStatesNothing(t *testing.T) {
+	s := studyOf(t, map[string]string{
+		"Study": `setting,value,unit,note
+scale_from,2,,
+scale_to,50,,
+points,20,,
+prototype_material,prototype concrete,,`,
+		"Prototype": `item,value,unit,scales_as,note
+span,40,m,length,`,
+		"Custom": `entry,kind,property,value,unit,source
+prototype concrete,solid,density,2400,kg/m^3,invented
+prototype concrete,solid,modulus,30,GPa,invented
+bare polymer,solid,density,1200,kg/m^3,invented`,
+		"Materials": `name,library_entry,conditions,note
+model polymer,bare polymer,,`,
+		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
+polymer,,substitute,"inertia, gravity, elasticity",,,"density, gravity",,,,model polymer,,,`,
+	})
+	c := onlyCombo(t, runStudy(t, s), "polymer")
+	if !c.Window.Empty() || !strings.Contains(c.Failing, "requires the model's modulus") {
+		t.Errorf("window %v, failing %q; want none, naming the modulus", c.Window, c.Failing)
+	}
+}
+
+// TestSubstituteBandRuledOutByOtherLimits: the test liquid meets
+// ν_p/kL^3/2 only from (ν_p(1−tol)/ν_own)^2/3 = 90^2/3 ≈ 20.1 to
+// 110^2/3 ≈ 23.0, but a limit keeps the model below 0.2 m (kL ≥ 50): the
+// reason gives the need at 1:50, ν_p/50^3/2, and where the liquid would
+// have served.
+func TestSubstituteBandRuledOutByOtherLimits(t *testing.T) {
+	s := studyOf(t, map[string]string{
+		"Study": `setting,value,unit,note
+scale_from,5,,
+scale_to,100,,
+points,60,,
+tolerance,0.1,,
+prototype_medium,heavy oil,,`,
+		"Prototype": `item,value,unit,scales_as,note
+barge_length,10,m,length,`,
+		"Custom": `entry,kind,property,value,unit,source
+heavy oil,fluid,density,900,kg/m^3,invented
+heavy oil,fluid,kinematic_viscosity,1e-4,m^2/s,invented
+model liquid,fluid,density,1000,kg/m^3,invented
+model liquid,fluid,kinematic_viscosity,1e-6,m^2/s,invented`,
+		"Media": `name,library_entry,conditions,note
+test liquid,model liquid,,`,
+		"Limits": `applies_to,limit,expression,source
+all,small flume,barge_length <= 0.2 m,invented`,
+		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
+substitute,,substitute,"inertia, gravity, viscosity",,,"density, gravity",,,test liquid,,,,`,
+	})
+	c := onlyCombo(t, runStudy(t, s), "substitute")
+	if !c.Window.Empty() {
+		t.Fatalf("window %v, want none", c.Window)
+	}
+	for _, want := range []string{
+		fmt.Sprintf("needs kinematic viscosity %.3g m^2/s at 1:50;", 1e-4/math.Pow(50, 1.5)),
+		"test liquid has 1e-06 m^2/s",
+		"the closest liquid in the library",
+		"it would meet it from 1:20.1 to 1:23, which other limits rule out",
+	} {
+		if !strings.Contains(c.Failing, want) {
+			t.Errorf("failing %q, want %q", c.Failing, want)
+		}
+	}
+}
