@@ -72,25 +72,7 @@ func checkMarginsFollow(t *testing.T, res *Result, c *ComboResult) {
 // kL from (ν_p(1−tol)/ν_own)^2/3 to (ν_p(1+tol)/ν_own)^2/3.
 func TestSubstituteFluidMatchBand(t *testing.T) {
 	const nuP, nuOwn, tol = 1e-4, 1e-6, 0.1
-	s := studyOf(t, map[string]string{
-		"Study": `setting,value,unit,note
-scale_from,5,,
-scale_to,100,,
-points,60,,
-tolerance,0.1,,
-prototype_medium,heavy oil,,`,
-		"Prototype": `item,value,unit,scales_as,note
-barge_length,10,m,length,`,
-		"Custom": `entry,kind,property,value,unit,source
-heavy oil,fluid,density,900,kg/m^3,invented
-heavy oil,fluid,kinematic_viscosity,1e-4,m^2/s,invented
-model liquid,fluid,density,1000,kg/m^3,invented
-model liquid,fluid,kinematic_viscosity,1e-6,m^2/s,invented`,
-		"Media": `name,library_entry,conditions,note
-test liquid,model liquid,,`,
-		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
-substitute,,substitute,"inertia, gravity, viscosity",,,"density, gravity",,,test liquid,,,,`,
-	})
+	s := fluidStudy(t, "")
 	res := runStudy(t, s)
 	c := onlyCombo(t, res, "substitute")
 	lo := math.Pow(nuP*(1-tol)/nuOwn, 2.0/3)
@@ -132,29 +114,12 @@ substitute,,substitute,"inertia, gravity, viscosity",,,"density, gravity",,,test
 // E_p ρ_m (1+tol)/(ρ_p E_own).
 func TestSubstituteModulusMatchBand(t *testing.T) {
 	const eP, rhoP, eOwn, rhoM, tol = 30e9, 2400.0, 1.5e9, 1200.0, 0.1
-	s := studyOf(t, map[string]string{
-		"Study": `setting,value,unit,note
-scale_from,2,,
-scale_to,50,,
-points,80,,
-tolerance,0.1,,
-prototype_material,prototype concrete,,`,
-		"Prototype": `item,value,unit,scales_as,note
-span,40,m,length,`,
-		"Custom": `entry,kind,property,value,unit,source
-prototype concrete,solid,density,2400,kg/m^3,invented
-prototype concrete,solid,modulus,30,GPa,invented
-light polymer,solid,density,1200,kg/m^3,invented
+	s := polymerStudy(t, "light polymer", `light polymer,solid,density,1200,kg/m^3,invented
 light polymer,solid,modulus,1.5,GPa,invented
 dense twin,solid,density,2400,kg/m^3,invented
 dense twin,solid,modulus,3.1,GPa,invented
 dense decoy,solid,density,2400,kg/m^3,invented
-dense decoy,solid,modulus,1.6,GPa,invented`,
-		"Materials": `name,library_entry,conditions,note
-model polymer,light polymer,,`,
-		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
-polymer,,substitute,"inertia, gravity, elasticity",,,"density, gravity",,,,model polymer,,,`,
-	})
+dense decoy,solid,modulus,1.6,GPa,invented`)
 	res := runStudy(t, s)
 	c := onlyCombo(t, res, "polymer")
 	center := eP * rhoM / (rhoP * eOwn)
@@ -337,23 +302,7 @@ func TestUnballastedNamesCandidates(t *testing.T) {
 // TestSubstituteCandidateStatesNothing: a required property that no
 // candidate states leaves no window, and the reason says which.
 func TestSubstituteCandidateStatesNothing(t *testing.T) {
-	s := studyOf(t, map[string]string{
-		"Study": `setting,value,unit,note
-scale_from,2,,
-scale_to,50,,
-points,20,,
-prototype_material,prototype concrete,,`,
-		"Prototype": `item,value,unit,scales_as,note
-span,40,m,length,`,
-		"Custom": `entry,kind,property,value,unit,source
-prototype concrete,solid,density,2400,kg/m^3,invented
-prototype concrete,solid,modulus,30,GPa,invented
-bare polymer,solid,density,1200,kg/m^3,invented`,
-		"Materials": `name,library_entry,conditions,note
-model polymer,bare polymer,,`,
-		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
-polymer,,substitute,"inertia, gravity, elasticity",,,"density, gravity",,,,model polymer,,,`,
-	})
+	s := polymerStudy(t, "bare polymer", "bare polymer,solid,density,1200,kg/m^3,invented")
 	c := onlyCombo(t, runStudy(t, s), "polymer")
 	if !c.Window.Empty() || !strings.Contains(c.Failing, "requires the model's modulus") {
 		t.Errorf("window %v, failing %q; want none, naming the modulus", c.Window, c.Failing)
@@ -366,7 +315,28 @@ polymer,,substitute,"inertia, gravity, elasticity",,,"density, gravity",,,,model
 // reason gives the need at 1:50, ν_p/50^3/2, and where the liquid would
 // have served.
 func TestSubstituteBandRuledOutByOtherLimits(t *testing.T) {
-	s := studyOf(t, map[string]string{
+	s := fluidStudy(t, "all,small flume,barge_length <= 0.2 m,invented")
+	c := onlyCombo(t, runStudy(t, s), "substitute")
+	if !c.Window.Empty() {
+		t.Fatalf("window %v, want none", c.Window)
+	}
+	for _, want := range []string{
+		fmt.Sprintf("needs kinematic viscosity %.3g m^2/s at 1:50;", 1e-4/math.Pow(50, 1.5)),
+		"test liquid has 1e-06 m^2/s",
+		"the closest liquid in the library",
+		"it would meet it from 1:20.1 to 1:23, which other limits rule out",
+	} {
+		if !strings.Contains(c.Failing, want) {
+			t.Errorf("failing %q, want %q", c.Failing, want)
+		}
+	}
+}
+
+// fluidStudy is an invented study of a barge in a heavy oil (ν_p = 1e-4
+// m²/s) modelled in a test liquid (ν = 1e-6 m²/s), with extra Limits rows.
+func fluidStudy(t *testing.T, limits string) *Study {
+	t.Helper()
+	sheets := map[string]string{
 		"Study": `setting,value,unit,note
 scale_from,5,,
 scale_to,100,,
@@ -382,23 +352,35 @@ model liquid,fluid,density,1000,kg/m^3,invented
 model liquid,fluid,kinematic_viscosity,1e-6,m^2/s,invented`,
 		"Media": `name,library_entry,conditions,note
 test liquid,model liquid,,`,
-		"Limits": `applies_to,limit,expression,source
-all,small flume,barge_length <= 0.2 m,invented`,
 		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
 substitute,,substitute,"inertia, gravity, viscosity",,,"density, gravity",,,test liquid,,,,`,
+	}
+	if limits != "" {
+		sheets["Limits"] = "applies_to,limit,expression,source\n" + limits
+	}
+	return studyOf(t, sheets)
+}
+
+// polymerStudy is an invented study of a concrete span (E 30 GPa, ρ 2400)
+// modelled in "model polymer", the Custom entry named, under gravity and
+// elasticity with the model's own density; custom adds Custom rows.
+func polymerStudy(t *testing.T, entry, custom string) *Study {
+	t.Helper()
+	return studyOf(t, map[string]string{
+		"Study": `setting,value,unit,note
+scale_from,2,,
+scale_to,50,,
+points,80,,
+tolerance,0.1,,
+prototype_material,prototype concrete,,`,
+		"Prototype": `item,value,unit,scales_as,note
+span,40,m,length,`,
+		"Custom": `entry,kind,property,value,unit,source
+prototype concrete,solid,density,2400,kg/m^3,invented
+prototype concrete,solid,modulus,30,GPa,invented
+` + custom,
+		"Materials": "name,library_entry,conditions,note\nmodel polymer," + entry + ",,",
+		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
+polymer,,substitute,"inertia, gravity, elasticity",,,"density, gravity",,,,model polymer,,,`,
 	})
-	c := onlyCombo(t, runStudy(t, s), "substitute")
-	if !c.Window.Empty() {
-		t.Fatalf("window %v, want none", c.Window)
-	}
-	for _, want := range []string{
-		fmt.Sprintf("needs kinematic viscosity %.3g m^2/s at 1:50;", 1e-4/math.Pow(50, 1.5)),
-		"test liquid has 1e-06 m^2/s",
-		"the closest liquid in the library",
-		"it would meet it from 1:20.1 to 1:23, which other limits rule out",
-	} {
-		if !strings.Contains(c.Failing, want) {
-			t.Errorf("failing %q, want %q", c.Failing, want)
-		}
-	}
 }
