@@ -384,3 +384,23 @@ prototype concrete,solid,modulus,30,GPa,invented
 polymer,,substitute,"inertia, gravity, elasticity",,,"density, gravity",,,,model polymer,,,`,
 	})
 }
+
+// TestTugSubstituteNeverFeasible: with the substitute listed first and the
+// cheapest scale asked for, the substitute fluid still has no window, so
+// no ordering or rule can recommend it.
+func TestTugSubstituteNeverFeasible(t *testing.T) {
+	s := scenario(t, "tug")
+	setSetting(s, "recommend", "cheapest")
+	n := len(s.Strategies)
+	s.Strategies[0], s.Strategies[n-1] = s.Strategies[n-1], s.Strategies[0]
+	res := runStudy(t, s)
+	if res.Strategies[0].Name != "substitute fluid" {
+		t.Fatalf("first strategy %q", res.Strategies[0].Name)
+	}
+	if b := res.Strategies[0].Best; b != nil {
+		t.Errorf("substitute fluid recommended at %s with %s", Scale(b.Recommended), b.Medium)
+	}
+	if strategy(t, res, "Froude scaling").Best == nil {
+		t.Error("Froude scaling lost its window")
+	}
+}
