@@ -381,6 +381,10 @@ type sweepOut struct {
 	notes        []string
 	requirements []Requirement
 	anyFacility  float64
+	// us and condU (the log10 kL a similarity condition pins, or NaN)
+	// let fill say why the checks of substitute.go empty the window.
+	us    []float64
+	condU float64
 }
 
 // limitsFor collects the limits that apply to a combination: the facility
@@ -567,7 +571,8 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	if out.window.Empty() {
 		out.failing = condFails
 		if out.failing == "" {
-			out.failing = x.bandFailing(limits, us, condU)
+			// fill may name a substitute check instead (substitute.go).
+			out.us, out.condU = us, condU
 		}
 		if out.failing == "" {
 			bi := 0
@@ -714,6 +719,11 @@ func (o *sweepOut) fill(r *ComboResult) {
 	x := o.combo
 	p := x.plan
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
+	if o.window.Empty() && o.us != nil {
+		if s := x.bandFailing(o.limits, o.us, o.condU); s != "" {
+			r.Failing = s
+		}
+	}
 	r.Margins, r.Limiting = o.margins, o.limiting
 	r.Requirements = o.requirements
 	r.AnyFacility = o.anyFacility
