@@ -290,12 +290,29 @@ weighted,,simulated,"inertia, gravity, elasticity",,,"modulus, gravity",,,,plast
 	}
 }
 
-// TestUnballastedNamesCandidates: the setting must name candidates.
+// TestUnballastedNamesCandidates: the setting must name candidates, once
+// each, and a material's check needs the prototype material's density.
 func TestUnballastedNamesCandidates(t *testing.T) {
-	s := armourStudy(t, "pvc armor", "dominant")
-	_, err := prepare(t, s)
-	if err == nil || !strings.Contains(err.Error(), `unballasted: "pvc armor" is not a candidate`) || !strings.Contains(err.Error(), "pvc armour") {
-		t.Errorf("error %v, want the unknown name with a suggestion", err)
+	cases := []struct {
+		value string
+		edit  func(s *Study)
+		want  []string
+	}{
+		{"pvc armor", nil, []string{`Study!B9: unballasted: "pvc armor" is not a candidate`, `(did you mean pvc armour?)`}},
+		{"pvc armour; pvc armour", nil, []string{`unballasted: "pvc armour" is named twice`}},
+		{"rock armour", func(s *Study) { delete(s.Settings, "prototype_material") }, []string{`the prototype has none: set prototype_material`}},
+	}
+	for _, c := range cases {
+		s := armourStudy(t, c.value, "dominant")
+		if c.edit != nil {
+			c.edit(s)
+		}
+		_, err := prepare(t, s)
+		for _, w := range c.want {
+			if err == nil || !strings.Contains(err.Error(), w) {
+				t.Errorf("unballasted %q: error %v, want %q", c.value, err, w)
+			}
+		}
 	}
 }
 
