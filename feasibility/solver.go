@@ -408,6 +408,14 @@ func (sol *Solution) findRequired() {
 		}
 		req[d.Quantity] = needed
 	}
+	// A property the given quantities determine through the definitions
+	// (viscosity from a given density and kinematic viscosity) asks
+	// nothing of the model either; a tuned one is still set by a device.
+	for q := range sol.fixedByGiven() {
+		if !slices.Contains(sol.Strategy.Tuned, q) {
+			delete(req, q)
+		}
+	}
 	for _, l := range sol.Laws {
 		if req[l.Quantity] {
 			sol.Required = append(sol.Required, l.Quantity)

@@ -168,6 +168,37 @@ func TestSolveReferenceCases(t *testing.T) {
 			// E·I follows E because the area moment stays tied.
 			required: []string{"flexural_rigidity", "modulus"},
 		},
+		{
+			// A medium known by its kinematic viscosity and density fixes
+			// its dynamic viscosity: μ = ν·ρ (definition of kinematic
+			// viscosity, any fluid-mechanics text, e.g. White ch. 1), so
+			// nothing is required of the model.
+			name:     "Froude, medium given by density and kinematic viscosity",
+			source:   "definition ν = μ/ρ (White, Fluid Mechanics, ch. 1)",
+			s:        Strategy{Retain: []string{"inertia", "gravity"}, Relax: []string{"viscosity"}, Given: []string{"density", "gravity", "kinematic_viscosity"}},
+			at:       Values{"length": 25, "density": 1, "gravity": 1, "kinematic_viscosity": 2},
+			factors:  map[string]float64{"viscosity": 2, "velocity": 5},
+			required: []string{},
+		},
+		{
+			name:     "Froude, medium given by density and viscosity",
+			source:   "definition ν = μ/ρ (White, Fluid Mechanics, ch. 1)",
+			s:        Strategy{Retain: []string{"inertia", "gravity"}, Relax: []string{"viscosity"}, Given: []string{"density", "gravity", "viscosity"}},
+			at:       Values{"length": 25, "density": 2, "gravity": 1, "viscosity": 3},
+			factors:  map[string]float64{"kinematic_viscosity": 1.5},
+			required: []string{},
+		},
+		{
+			// Given E·I and a tied area moment fix E = E·I / I.
+			name:     "beam bending, flexural rigidity given",
+			source:   "definition of flexural rigidity E·I (Timoshenko & Gere, Mechanics of Materials)",
+			s:        Strategy{Retain: []string{"inertia", "gravity", "bending"}, Given: []string{"density", "gravity", "flexural_rigidity"}},
+			at:       Values{"length": 10, "density": 1, "gravity": 1, "flexural_rigidity": 1e5},
+			factors:  map[string]float64{"modulus": 10},
+			required: []string{},
+			// Bending similarity then needs k_EI = kL^5: 1e5 pins kL = 10.
+			pinsLength: 10,
+		},
 	}
 	for _, c := range cases {
 		t.Run(c.name, func(t *testing.T) {

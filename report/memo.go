@@ -105,7 +105,7 @@ func Memo(res *sweep.Result) string {
 				if len(pv.Matches) == 0 {
 					b.WriteString("  No entry of the library meets it within the study's tolerance.\n")
 				} else {
-					fmt.Fprintf(b, "  Library entries that meet it: %s.\n", strings.Join(pv.Matches, ", "))
+					fmt.Fprintf(b, "  Library entries that meet it at the recommended scale: %s.\n", matchList(pv.Quantity, pv.Matches))
 				}
 			}
 		}

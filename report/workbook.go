@@ -338,7 +338,7 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 			for _, pv := range c.Required {
 				q := fmt.Sprintf("%s %s", pv.Quantity, Num3(pv.AtRecommended))
 				if len(pv.Matches) > 0 {
-					q += " (library: " + strings.Join(pv.Matches, ", ") + ")"
+					q += " (library: " + matchList(pv.Quantity, pv.Matches) + ")"
 				} else if c.Technique == "substitute" {
 					q += " (no library entry meets it)"
 				}

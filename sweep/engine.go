@@ -11,7 +11,6 @@ import (
 	"sync"
 
 	"scaleplan/feasibility"
-	"scaleplan/materials"
 )
 
 // Result is the outcome of one study.
@@ -113,7 +112,7 @@ type PropertyValue struct {
 	Law           string  // its scale law
 	AtLo, AtHi    float64 // at the window edges (model values)
 	AtRecommended float64
-	Matches       []string // library entries that meet it within tolerance
+	Matches       []Match // library entries that meet it within tolerance at the recommended scale
 	Tuned         bool
 	// Own is the candidate's own value of the property (NaN if it has
 	// none); a device (added mass, springs, a backbone beam) supplies the
@@ -349,6 +348,27 @@ type compiled struct {
 	vals []float64
 	set  []uInterval
 	// lower/upper range limits of a tuned property are built directly.
+	// band is set on a limit that checks a candidate's own value against
+	// the value the strategy requires (substitute.go).
+	band *band
+}
+
+// newCompiled readies a limit whose names resolve to forms; a product of
+// powers gets its linear margin A + B·log10 kL.
+func newCompiled(info LimitInfo, l *feasibility.Limit, forms map[string]linForm) compiled {
+	c := compiled{info: info, lim: l, forms: forms}
+	if k, terms, ok := l.LogLinear(); ok {
+		c.terms = terms
+		c.info.Linear = true
+		c.info.A = k
+		for _, t := range terms {
+			e := t.Exp.Float64()
+			f := forms[t.Name]
+			c.info.A += e * f.C / math.Ln10
+			c.info.B += e * f.E
+		}
+	}
+	return c
 }
 
 // sweepOut is what one combination at one axis value gives.
@@ -363,6 +383,10 @@ type sweepOut struct {
 	notes        []string
 	requirements []Requirement
 	anyFacility  float64
+	// us and condU (the log10 kL a similarity condition pins, or NaN)
+	// let fill say why the checks of substitute.go empty the window.
+	us    []float64
+	condU float64
 }
 
 // limitsFor collects the limits that apply to a combination: the facility
@@ -397,19 +421,7 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 		return forms, nil
 	}
 	add := func(info LimitInfo, l *feasibility.Limit, forms map[string]linForm) {
-		c := compiled{info: info, lim: l, forms: forms}
-		if k, terms, ok := l.LogLinear(); ok {
-			c.terms = terms
-			c.info.Linear = true
-			c.info.A = k
-			for _, t := range terms {
-				e := t.Exp.Float64()
-				f := forms[t.Name]
-				c.info.A += e * f.C / math.Ln10
-				c.info.B += e * f.E
-			}
-		}
-		out = append(out, c)
+		out = append(out, newCompiled(info, l, forms))
 	}
 	if x.fac != nil {
 		for _, d := range p.Catalog.DefaultLimits(x.fac.Type) {
@@ -462,7 +474,11 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 			add(LimitInfo{Name: "tuned " + q + " " + side.what, Expression: text, Source: "range of " + describePair(x.medium, x.material)}, l, forms)
 		}
 	}
-	return out, notes, nil
+	bands, bandNotes, err := x.bandLimits()
+	if err != nil {
+		return nil, nil, err
+	}
+	return append(out, bands...), append(notes, bandNotes...), nil
 }
 
 func quantityUnit(q string) string {
@@ -535,6 +551,9 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 			win = nil
 		}
 	}
+	if _, blocked, _ := x.checks(); blocked != "" && condFails == "" {
+		condFails, win = blocked, nil
+	}
 	out.window = toWindow(win)
 	// Margins on the grid, for the maps: one pass per limit over the grid,
 	// a linear form for products of powers, so the inner loop is a
@@ -553,6 +572,10 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	}
 	if out.window.Empty() {
 		out.failing = condFails
+		if out.failing == "" {
+			// fill may name a substitute check instead (substitute.go).
+			out.us, out.condU = us, condU
+		}
 		if out.failing == "" {
 			bi := 0
 			for i := range out.margins {
@@ -699,6 +722,11 @@ func (o *sweepOut) fill(r *ComboResult) {
 	x := o.combo
 	p := x.plan
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
+	if o.window.Empty() && o.us != nil {
+		if s := x.bandFailing(o.limits, o.us, o.condU); s != "" {
+			r.Failing = s
+		}
+	}
 	r.Margins, r.Limiting = o.margins, o.limiting
 	r.Requirements = o.requirements
 	r.AnyFacility = o.anyFacility
@@ -785,7 +813,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 			}
 		}
 		if x.cas.Technique == "substitute" {
-			pv.Matches = p.libraryMatches(q, pv.AtLo, pv.AtHi)
+			pv.Matches = x.libraryMatches(q, r.Recommended)
 		}
 		r.Required = append(r.Required, pv)
 	}
@@ -892,26 +920,6 @@ func (x *combo) cost(kL float64) (float64, error) {
 		total += c.Coefficient * v / c.Per.Factor
 	}
 	return total, nil
-}
-
-// libraryMatches lists the library entries whose property lies within
-// the study's tolerance of the range a model needs.
-func (p *Plan) libraryMatches(q string, a, b float64) []string {
-	lo, hi := math.Min(a, b), math.Max(a, b)
-	tol := p.Settings.Tolerance
-	var out []string
-	for _, e := range p.Library.Entries() {
-		props, err := e.At(materials.Conditions{})
-		if err != nil {
-			continue
-		}
-		for _, pr := range props {
-			if pr.Quantity == q && pr.Value >= lo*(1-tol) && pr.Value <= hi*(1+tol) {
-				out = append(out, e.Name)
-			}
-		}
-	}
-	return out
 }
 
 // joint intersects, per facility, the windows of every case: the scales at

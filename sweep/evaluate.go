@@ -37,6 +37,9 @@ type combo struct {
 	// own value of each property, from the candidate that supplies it.
 	pert       map[inputKey]float64
 	candFactor map[string]float64
+	// byCand holds each candidate's own properties, as drawn and at the
+	// axis value (candidateValue reads them).
+	byCand map[*Candidate2]map[string]materials.Property
 }
 
 // factor returns the multiplier a draw puts on an input (1 when none).
@@ -64,7 +67,7 @@ func (p *Plan) newCombo(c *PlanCase, medium, material *Candidate2, fac *Facility
 func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Facility, axis float64, pert map[inputKey]float64) (*combo, error) {
 	x := &combo{plan: p, cas: c, medium: medium, material: material, fac: fac, axis: axis,
 		values: feasibility.Values{}, props: map[string]materials.Property{}, caps: map[string]float64{}, gEnv: StandardGravity,
-		pert: pert, candFactor: map[string]float64{}}
+		pert: pert, candFactor: map[string]float64{}, byCand: map[*Candidate2]map[string]materials.Property{}}
 	if fac != nil {
 		for k, v := range fac.Caps {
 			x.caps[k] = v * x.factor(inputKey{inputCapability, fac.Name, k})
@@ -101,12 +104,15 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 				props[pr.Quantity] = pr
 			}
 		}
+		own := map[string]materials.Property{}
 		for q, pr := range props {
 			f := x.factor(inputKey{inputCandidate, cand.Name, q})
 			pr.Value *= f
 			x.props[q] = pr // the medium, set last, wins
 			x.candFactor[q] = f
+			own[q] = pr
 		}
+		x.byCand[cand] = own
 	}
 	sol := c.Solution
 	x.logp = make([]float64, len(sol.Params))

@@ -43,6 +43,12 @@ type Plan struct {
 	Library    *materials.Library
 	Grid       []float64 // kL values
 	AxisValues []float64 // second-axis values in SI, nil without an axis
+	// ProtoMaterial holds the prototype material's own properties (Proto
+	// lets the prototype medium's win), SI.
+	ProtoMaterial map[string]float64
+	// Unballasted names the candidates whose mass cannot be ballasted
+	// (free bodies, grains: the Study setting unballasted).
+	Unballasted map[string]bool
 }
 
 // ProtoItem is a prototype item in SI.
@@ -130,6 +136,7 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.Media = p.prepareCandidates(s.Media, "Media", "medium", &ps)
 	p.Materials = p.prepareCandidates(s.Materials, "Materials", "material", &ps)
 	p.prepareProto(&ps)
+	p.prepareUnballasted(&ps)
 	p.prepareFacilities(&ps)
 	p.prepareStrategies(&ps)
 	p.prepareLimits(&ps)
@@ -335,6 +342,12 @@ func (p *Plan) prepareProto(ps *Problems) {
 		for q, pr := range props {
 			p.Proto[q] = pr.Value
 			p.ProtoSrc[q] = src.name
+			if src.setting == "prototype_material" {
+				if p.ProtoMaterial == nil {
+					p.ProtoMaterial = map[string]float64{}
+				}
+				p.ProtoMaterial[q] = pr.Value
+			}
 		}
 	}
 	p.Proto["gravity"] = StandardGravity

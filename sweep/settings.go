@@ -33,6 +33,7 @@ type Settings struct {
 	Samples             int     // draws of the uncertain inputs (0: none)
 	Seed                uint64  // of the draws, for reproducible results
 	RobustLevel         float64 // probability a robust scale must reach
+	Unballasted         string  // candidates whose mass cannot be ballasted, comma separated
 	cells               map[string]Cell
 }
 
@@ -44,7 +45,7 @@ var settingDefaults = map[string]string{
 	"tolerance": "0.1", "currency": "EUR", "recommend": "largest",
 	"prototype_medium": "", "prototype_medium_conditions": "", "prototype_material": "", "prototype_material_conditions": "",
 	"reference_length": "", "reference_speed": "", "max_points": "100000000", "inputs_date": "",
-	"samples": "0", "seed": "1", "robust_level": "0.95",
+	"samples": "0", "seed": "1", "robust_level": "0.95", "unballasted": "",
 }
 
 var settingRequired = []string{"scale_from", "scale_to"}
@@ -167,6 +168,7 @@ func parseSettings(s *Study, ps *Problems) Settings {
 	st.ReferenceLength, st.ReferenceSpeed = text("reference_length"), text("reference_speed")
 	st.MaxPoints = integer("max_points", 1, math.MaxInt32)
 	st.InputsDate = text("inputs_date")
+	st.Unballasted = text("unballasted")
 	st.Samples = integer("samples", 0, 10_000_000)
 	st.Seed = uint64(integer("seed", 0, math.MaxInt32))
 	st.RobustLevel = number("robust_level")
