@@ -55,8 +55,7 @@ func Example() {
 	// complete similarity: no feasible scale
 	// Froude scaling: 1:11.4 to 1:18.9, large model stopped by blockage, small by model Reynolds number
 	//   recommended 1:11.4 in Deepwater tank
-	// substitute fluid: 1:11.4 to 1:60, large model stopped by blockage, small by scale range
-	//   recommended 1:11.4 in Deepwater tank
+	// substitute fluid: no feasible scale
 }
 
 // A window is a list of disjoint intervals of kL = prototype / model; the
