@@ -19,6 +19,10 @@ type Result struct {
 	Plan       *Plan
 	Name       string
 	Strategies []*StrategyResult
+	// Ranking orders the strategies, recommended first (rank.go);
+	// Warnings are the study's (warnings.go).
+	Ranking  []RankEntry
+	Warnings Warnings
 }
 
 // StrategyResult gathers the combinations of one strategy.
@@ -219,6 +223,7 @@ feed:
 		sr.Best = p.best(sr)
 		res.Strategies = append(res.Strategies, sr)
 	}
+	res.Ranking, res.Warnings = p.Rank(res.Strategies), p.Warnings
 	return res, nil
 }
 

@@ -43,6 +43,9 @@ type Plan struct {
 	Library    *materials.Library
 	Grid       []float64 // kL values
 	AxisValues []float64 // second-axis values in SI, nil without an axis
+	// Warnings are the study's warnings: from reading, then from
+	// checking (see warnings.go).
+	Warnings Warnings
 }
 
 // ProtoItem is a prototype item in SI.
@@ -136,6 +139,9 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.prepareCosts(&ps)
 	p.prepareMeasures(&ps)
 	p.prepareUncertain(&ps)
+	p.Warnings = append(append(Warnings(nil), s.Warnings...), p.Warnings...) // reading first
+	p.warnDefaultLimits()
+	p.warnUnusedCapabilities()
 	if len(ps) == 0 {
 		p.buildGrid(&ps)
 	}
@@ -469,7 +475,7 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 				ok = false
 				continue
 			}
-			c.Fix[q] = k
+			p.addFix(c, q, k, ps)
 		}
 		c.Correction = strings.TrimSpace(r.Correction)
 		if c.Correction != "" && !slices.Contains(Corrections, c.Correction) {
