@@ -306,8 +306,13 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 }
 
 // axisApplies reports whether the second axis changes this combination.
+// A case that fixes the axis quantity keeps its own factor, so the axis
+// does not apply to it.
 func (p *Plan) axisApplies(c *PlanCase, f *Facility) bool {
 	ax := p.Settings.Axis
+	if _, fixed := c.Fix[ax]; fixed {
+		return false
+	}
 	if isCondition(ax) {
 		return true
 	}
