@@ -197,22 +197,13 @@ func wbCombos(sr *sweep.StrategyResult) []*sweep.ComboResult {
 	return append(append([]*sweep.ComboResult(nil), sr.Combos...), sr.Joint...)
 }
 
-// wbRecommended picks the recommended strategy by the rule of the spec
-// (§8): the best option that allows the largest model (smallest kL), or
-// the cheapest when the study asks for it; the first strategy wins a tie.
+// wbRecommended is the strategy the study's ranking recommends (§8.1).
 func wbRecommended(res *sweep.Result) *sweep.StrategyResult {
-	var best *sweep.StrategyResult
-	cheapest := res.Plan.Settings.Recommend == "cheapest"
-	for _, sr := range res.Strategies {
-		c := sr.Best
-		if c == nil {
-			continue
-		}
-		if best == nil ||
-			(cheapest && c.Cost < best.Best.Cost) ||
-			(!cheapest && c.Recommended < best.Best.Recommended) {
-			best = sr
-		}
+	// The rule itself (scale effects first, then model size or cost) is
+	// checked against hand-worked cases in sweep/rank_test.go; here every
+	// output must follow the one ranking.
+	if e := res.Recommended(); e != nil {
+		return e.Result
 	}
-	return best
+	return nil
 }
