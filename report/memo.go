@@ -87,11 +87,12 @@ func Memo(res *sweep.Result) string {
 		}
 
 		b.WriteString("## Scale effects and corrections\n\n")
-		if len(recS.Cases) > 0 && len(recS.Cases[0].Solution.Strategy.Relax) == 0 {
+		relaxed := res.Recommended().Relaxed // every case's, also at a joint scale
+		if len(relaxed) == 0 {
 			b.WriteString("The strategy relaxes no law; scale effects beyond the laws modelled remain.\n")
 		}
-		for _, m := range rec.Mismatches {
-			fmt.Fprintf(b, "- The %s (law %s relaxed) is not matched: prototype / model = %s.\n", m.Group, m.Law, Num3(m.Ratio))
+		for _, m := range relaxed {
+			fmt.Fprintf(b, "- %s\n", relaxedSentence(m))
 		}
 		if f := rec.Friction; f != nil {
 			fmt.Fprintf(b, "- Skin friction is corrected with the ITTC-1957 line: C_F = %.4g in the model (Re %.3g) and %.4g at full scale (Re %.3g), a correction of ΔC_F = %.4g.\n",

@@ -188,3 +188,19 @@ func summaryVerdicts(res *sweep.Result, bold int) [][]any {
 	}
 	return rows
 }
+
+// relaxedSentence says how a relaxed group is off at the recommended scale.
+func relaxedSentence(m sweep.Relaxed) string {
+	g := m.Group
+	if m.Case != "" {
+		g += " of case " + m.Case
+	}
+	if math.IsNaN(m.Ratio) {
+		return fmt.Sprintf("The %s (law %s relaxed) is not matched; its mismatch is not evaluated (give %s).", g, m.Law, strings.Join(m.Missing, ", "))
+	}
+	s := fmt.Sprintf("The %s (law %s relaxed) is not matched: prototype / model = %s.", g, m.Law, Num3(m.Ratio))
+	if m.Weak {
+		s += " The study marks the law weak."
+	}
+	return s
+}

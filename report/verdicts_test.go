@@ -208,3 +208,28 @@ func TestRunTextStatesVerdicts(t *testing.T) {
 		t.Errorf("the anchor study has no warnings:\n%s", out)
 	}
 }
+
+// TestNoAxisForAFixedCase: the conductor sweeps its velocity scale; with
+// the velocity fixed on its strategy row the axis does not apply: no
+// contour map, no axis value stated, the fix stated instead.
+func TestNoAxisForAFixedCase(t *testing.T) {
+	res := wbRunScenario(t, "conductor")
+	sr := res.Strategies[0]
+	if report.ContourData(res, sr) == nil {
+		t.Fatal("the swept conductor has no contour map")
+	}
+	if lines := strings.Join(report.AssumptionLines(res, sr), "\n"); !strings.Contains(lines, "second axis at velocity scale k = ") {
+		t.Errorf("no axis value stated: %s", lines)
+	}
+	s := wbLoad(t, "conductor")
+	s.Strategies[0].Fix = "velocity=2"
+	res = wbRun(t, s)
+	sr = res.Strategies[0]
+	if report.ContourData(res, sr) != nil {
+		t.Error("a contour map over the velocity scale for a strategy that fixes it")
+	}
+	lines := strings.Join(report.AssumptionLines(res, sr), "\n")
+	if strings.Contains(lines, "second axis") || !strings.Contains(lines, "free choice fixed: velocity=2") {
+		t.Errorf("assumptions: %s", lines)
+	}
+}
