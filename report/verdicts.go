@@ -16,11 +16,7 @@ import (
 func WarningLines(res *sweep.Result) []string {
 	var out []string
 	for _, w := range res.Warnings {
-		s := w.String()
-		if w.Strategy != "" {
-			s = "strategy " + w.Strategy + ": " + s
-		}
-		out = append(out, s)
+		out = append(out, w.Text())
 	}
 	return out
 }

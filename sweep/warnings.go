@@ -27,6 +27,15 @@ func (w Warning) String() string {
 	return w.Cell.String() + ": " + w.Msg
 }
 
+// Text is the warning as every output says it: a strategy's own warning
+// begins with the strategy's name.
+func (w Warning) Text() string {
+	if w.Strategy != "" {
+		return "strategy " + w.Strategy + ": " + w.String()
+	}
+	return w.String()
+}
+
 // Warnings is a list of warnings in the order they were found.
 type Warnings []Warning
 

@@ -117,11 +117,7 @@ func writeCheckText(stdout, stderr io.Writer, checks []checkResult) {
 		if len(r.Warnings) > 0 {
 			fmt.Fprintf(stdout, "%s: %d %s:\n", r.Study, len(r.Warnings), plural(len(r.Warnings), "warning", "warnings"))
 			for _, w := range r.Warnings {
-				s := w.String()
-				if w.Strategy != "" {
-					s = "strategy " + w.Strategy + ": " + s
-				}
-				fmt.Fprintf(stdout, "  %s\n", s)
+				fmt.Fprintf(stdout, "  %s\n", w.Text())
 			}
 		}
 		if len(r.Problems) == 0 {
@@ -163,11 +159,7 @@ func checkData(checks []checkResult) []any {
 			j.Problems = append(j.Problems, problemJSON{Place: p.Cell.String(), Message: p.Msg})
 		}
 		for _, w := range r.Warnings {
-			s := w.String()
-			if w.Strategy != "" {
-				s = "strategy " + w.Strategy + ": " + s
-			}
-			j.Warnings = append(j.Warnings, s)
+			j.Warnings = append(j.Warnings, w.Text())
 		}
 		out = append(out, j)
 	}
