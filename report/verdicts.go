@@ -192,7 +192,7 @@ func relaxedSentence(m sweep.Relaxed) string {
 		g += " of case " + m.Case
 	}
 	if math.IsNaN(m.Ratio) {
-		return fmt.Sprintf("The %s (law %s relaxed) is not matched; its mismatch is not evaluated (give %s).", g, m.Law, strings.Join(m.Missing, ", "))
+		return fmt.Sprintf("The %s (law %s relaxed) is not matched; %s.", g, m.Law, m.Words())
 	}
 	s := fmt.Sprintf("The %s (law %s relaxed) is not matched: prototype / model = %s.", g, m.Law, Num3(m.Ratio))
 	if m.Weak {

@@ -66,6 +66,8 @@ func (r Relaxed) Words() string {
 		g += " (case " + r.Case + ")"
 	}
 	switch {
+	case math.IsNaN(r.Ratio) && len(r.Missing) == 0:
+		return fmt.Sprintf("the %s mismatch cannot be evaluated", g)
 	case math.IsNaN(r.Ratio):
 		return fmt.Sprintf("the %s mismatch cannot be evaluated (give %s)", g, strings.Join(r.Missing, ", "))
 	case r.Ratio >= 1:
