@@ -44,9 +44,14 @@ func ExampleWriteRunText() {
 	}
 	// Output:
 	// Study telecom-mast (k = prototype value / model value; scale 1:25 means kL = 25)
-	// strategy         technique   window      large-model edge   small-model edge  recommended  model length  cost       best candidate
-	// added mass       simulated   1:2.5–1:60  laboratory height  scale range       1:2.5        12 m          81000 EUR  steel model in Seismic table
-	// softer material  substitute  1:2.5–1:60  laboratory height  scale range       1:2.5        12 m          81000 EUR  polycarbonate model in Seismic table
+	// rank  strategy         technique   window         large-model edge                                             small-model edge                                             recommended  model length  cost       best candidate
+	// 1     added mass       simulated   1:2.5–1:60     laboratory height                                            scale range                                                  1:2.5        12 m          81000 EUR  steel model in Seismic table
+	// 2     softer material  substitute  1:12.2–1:14.9  density of polycarbonate model no more than 10 % above need  density of polycarbonate model no more than 10 % below need  1:12.2       2.47 m        42869 EUR  polycarbonate model in Seismic table
+	// Recommended: added mass at 1:2.5 (relaxes no law)
+	//   added mass: cheapest feasible option over all combinations: 1:60 with steel model in Seismic table, 35000 EUR
+	//   added mass: a larger model (1:2.49) is stopped by "laboratory height", which no facility capability relieves
+	//   softer material: cheapest feasible option over all combinations: 1:14.9 with polycarbonate model in Seismic table, 41074 EUR
+	//   softer material: a larger model (1:12.1) is stopped by "density of polycarbonate model no more than 10 % above need", which no facility capability relieves
 	// A planning aid: scale effects remain; the test plan rests with qualified engineers, facility rules and codes.
 }
 

@@ -32,6 +32,7 @@ func Memo(res *sweep.Result) string {
 	}
 	fmt.Fprintf(b, "Scale factors follow k = prototype value / model value: a model at 1:25 has kL = 25. "+
 		"The length scale was swept from %s to %s.\n\n", sweep.Scale(st.ScaleFrom), sweep.Scale(st.ScaleTo))
+	memoWarnings(b, res)
 
 	b.WriteString("## Strategies compared\n\n")
 	b.WriteString("| strategy | technique | feasible window | large-model edge | small-model edge | recommended | cost |\n|---|---|---|---|---|---|---|\n")
@@ -46,6 +47,7 @@ func Memo(res *sweep.Result) string {
 			md(large), md(small), sweep.Scale(c.Recommended), Money(c.Cost, st.Currency))
 	}
 	b.WriteString("\n")
+	memoTradeoffs(b, res)
 
 	rec, recS := recommended(res)
 	b.WriteString("## Recommendation\n\n")
@@ -62,12 +64,13 @@ func Memo(res *sweep.Result) string {
 			Candidate(rec), WindowText(rec.Window), large, small)
 		if !math.IsNaN(rec.Cost) {
 			fmt.Fprintf(b, " The campaign is estimated at %s at this scale", Money(rec.Cost, st.Currency))
-			if !math.IsNaN(rec.Cheapest) && rec.Cheapest != rec.Recommended {
-				fmt.Fprintf(b, "; the cheapest feasible scale is %s at %s", sweep.Scale(rec.Cheapest), Money(rec.CheapestCost, st.Currency))
+			if o := res.Assume(recS).Cheapest; o != nil && (o.Cheapest != rec.Recommended || o != rec) {
+				fmt.Fprintf(b, "; the cheapest feasible option over all combinations of the strategy is %s with %s, at %s", sweep.Scale(o.Cheapest), Candidate(o), Money(o.CheapestCost, st.Currency))
 			}
 			b.WriteString(".")
 		}
 		b.WriteString("\n\n")
+		memoWhy(b, res)
 		if r := rec.Robust; r != nil {
 			fmt.Fprintf(b, "**Uncertain inputs.** Drawing the study's uncertain inputs %d times, the scales that stay feasible with a probability of at least %.0f %% are %s (sampling error at most %.3f), against %s on nominal values.",
 				r.Samples, 100*r.Level, WindowText(r.Window), r.StdErr, WindowText(rec.Window))
@@ -84,11 +87,12 @@ func Memo(res *sweep.Result) string {
 		}
 
 		b.WriteString("## Scale effects and corrections\n\n")
-		if len(recS.Cases) > 0 && len(recS.Cases[0].Solution.Strategy.Relax) == 0 {
+		relaxed := res.Recommended().Relaxed // every case's, also at a joint scale
+		if len(relaxed) == 0 {
 			b.WriteString("The strategy relaxes no law; scale effects beyond the laws modelled remain.\n")
 		}
-		for _, m := range rec.Mismatches {
-			fmt.Fprintf(b, "- The %s (law %s relaxed) is not matched: prototype / model = %s.\n", m.Group, m.Law, Num3(m.Ratio))
+		for _, m := range relaxed {
+			fmt.Fprintf(b, "- %s\n", relaxedSentence(m))
 		}
 		if f := rec.Friction; f != nil {
 			fmt.Fprintf(b, "- Skin friction is corrected with the ITTC-1957 line: C_F = %.4g in the model (Re %.3g) and %.4g at full scale (Re %.3g), a correction of ΔC_F = %.4g.\n",
@@ -133,6 +137,7 @@ func Memo(res *sweep.Result) string {
 			}
 		}
 	}
+	memoAssumptions(b, res)
 	b.WriteString("\n## Cautions\n\n")
 	for _, c := range Cautions {
 		fmt.Fprintf(b, "- %s\n", c)
@@ -140,22 +145,14 @@ func Memo(res *sweep.Result) string {
 	return b.String()
 }
 
-// recommended picks the strategy whose best option allows the largest
-// model (the cheapest when the study asks for it).
+// recommended is the first feasible strategy of the study's ranking
+// (sweep.Plan.Rank), with its best combination.
 func recommended(res *sweep.Result) (*sweep.ComboResult, *sweep.StrategyResult) {
-	var best *sweep.ComboResult
-	var bs *sweep.StrategyResult
-	for _, sr := range res.Strategies {
-		c := sr.Best
-		if c == nil {
-			continue
-		}
-		if best == nil || (res.Plan.Settings.Recommend == "cheapest" && c.Cost < best.Cost) ||
-			(res.Plan.Settings.Recommend != "cheapest" && c.Recommended < best.Recommended) {
-			best, bs = c, sr
-		}
+	e := res.Recommended()
+	if e == nil {
+		return nil, nil
 	}
-	return best, bs
+	return e.Best, e.Result
 }
 
 // caseSolution finds the solution of a combination's case.

@@ -129,6 +129,13 @@ func WritePlots(dir, base string, res *sweep.Result, format string) ([]string, e
 			}
 		}
 	}
+	if rows := TradeoffData(res); rows != nil {
+		f, err := writeTradeoffPlot(dir, base, format, date, res, rows)
+		if err != nil {
+			return files, err
+		}
+		files = append(files, f)
+	}
 	return files, nil
 }
 

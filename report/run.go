@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"io"
 	"math"
+	"strconv"
 	"strings"
 	"text/tabwriter"
 
@@ -71,7 +72,7 @@ func WriteRunText(w io.Writer, res *sweep.Result) error {
 	st := res.Plan.Settings
 	fmt.Fprintf(b, "Study %s (%s)\n", res.Name, Convention)
 	tw := tabwriter.NewWriter(b, 2, 4, 2, ' ', 0)
-	fmt.Fprintln(tw, "strategy\ttechnique\twindow\tlarge-model edge\tsmall-model edge\trecommended\tmodel length\tcost\tbest candidate")
+	fmt.Fprintln(tw, "rank\tstrategy\ttechnique\twindow\tlarge-model edge\tsmall-model edge\trecommended\tmodel length\tcost\tbest candidate")
 	for _, sr := range res.Strategies {
 		c := sr.Best
 		if c == nil {
@@ -79,7 +80,7 @@ func WriteRunText(w io.Writer, res *sweep.Result) error {
 			if why := firstFailing(sr); why != "" {
 				reason = why
 			}
-			fmt.Fprintf(tw, "%s\t%s\tnone\t%s\t\t\t\t\t\n", sr.Name, sr.Technique, reason)
+			fmt.Fprintf(tw, "%s\t%s\t%s\tnone\t%s\t\t\t\t\t\n", rankText(res, sr), sr.Name, sr.Technique, reason)
 			continue
 		}
 		large, small := Edges(c.Window)
@@ -87,100 +88,30 @@ func WriteRunText(w io.Writer, res *sweep.Result) error {
 		if !math.IsNaN(c.ModelLength) {
 			length = Num3(c.ModelLength) + " m"
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", sr.Name, sr.Technique, WindowText(c.Window), large, small,
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", rankText(res, sr), sr.Name, sr.Technique, WindowText(c.Window), large, small,
 			sweep.Scale(c.Recommended), length, Money(c.Cost, st.Currency), Candidate(c))
 	}
 	tw.Flush()
+	runTextVerdicts(b, res)
 	b.WriteString("A planning aid: scale effects remain; the test plan rests with qualified engineers, facility rules and codes.\n")
 	_, err := io.WriteString(w, b.String())
 	return err
 }
 
+// rankText is a strategy's rank in the study's recommendation.
+func rankText(res *sweep.Result, sr *sweep.StrategyResult) string {
+	if e := res.RankOf(sr.Name); e != nil {
+		return strconv.Itoa(e.Rank)
+	}
+	return "-"
+}
+
 // firstFailing is the reason the first combination of a strategy has no
 // window.
-func firstFailing(sr *sweep.StrategyResult) string {
-	pool := sr.Combos
-	if len(sr.Joint) > 0 {
-		pool = sr.Joint
-	}
-	for _, c := range pool {
-		if c.Err != "" {
-			return c.Err
-		}
-		if c.Failing != "" {
-			return c.Failing
-		}
-	}
-	return ""
-}
+func firstFailing(sr *sweep.StrategyResult) string { return sweep.FailingReason(sr) }
 
 // Num3 prints a number to three significant figures.
 func Num3(x float64) string { return fmt.Sprintf("%.3g", x) }
-
-// JSON shapes of `scaleplan run --json`.
-type runJSON struct {
-	Study      string         `json:"study"`
-	Convention string         `json:"convention"`
-	Strategies []strategyJSON `json:"strategies"`
-	Outputs    []string       `json:"outputs,omitempty"`
-}
-
-type strategyJSON struct {
-	Name      string     `json:"name"`
-	Technique string     `json:"technique"`
-	Feasible  bool       `json:"feasible"`
-	Reason    string     `json:"reason,omitempty"`
-	Best      *comboJSON `json:"best,omitempty"`
-}
-
-type comboJSON struct {
-	Case           string         `json:"case,omitempty"`
-	Medium         string         `json:"medium,omitempty"`
-	Material       string         `json:"material,omitempty"`
-	Facility       string         `json:"facility,omitempty"`
-	Window         []intervalJSON `json:"window"`
-	Recommended    float64        `json:"recommended_kL"`
-	RecommendedTxt string         `json:"recommended_scale"`
-	ModelLength    *float64       `json:"model_length_m,omitempty"`
-	Cost           *float64       `json:"cost,omitempty"`
-	Axis           *float64       `json:"axis_value,omitempty"`
-}
-
-type intervalJSON struct {
-	From      float64 `json:"from_kL"`
-	To        float64 `json:"to_kL"`
-	FromLimit string  `json:"large_model_edge"`
-	ToLimit   string  `json:"small_model_edge"`
-}
-
-func optional(x float64) *float64 {
-	if math.IsNaN(x) {
-		return nil
-	}
-	r := Round(x)
-	return &r
-}
-
-// RunData returns the JSON form of a study's result.
-func RunData(res *sweep.Result, outputs []string) any {
-	out := runJSON{Study: res.Name, Convention: Convention, Strategies: []strategyJSON{}, Outputs: outputs}
-	for _, sr := range res.Strategies {
-		s := strategyJSON{Name: sr.Name, Technique: sr.Technique, Feasible: sr.Best != nil}
-		if c := sr.Best; c != nil {
-			cj := &comboJSON{Case: c.Case, Medium: c.Medium, Material: c.Material, Facility: c.Facility, Window: []intervalJSON{},
-				Recommended: Round(c.Recommended), RecommendedTxt: sweep.Scale(c.Recommended),
-				ModelLength: optional(c.ModelLength), Cost: optional(c.Cost), Axis: optional(c.Axis)}
-			for _, iv := range c.Window {
-				cj.Window = append(cj.Window, intervalJSON{Round(iv.Lo), Round(iv.Hi), iv.LoLimit, iv.HiLimit})
-			}
-			s.Best = cj
-		} else {
-			s.Reason = firstFailing(sr)
-		}
-		out.Strategies = append(out.Strategies, s)
-	}
-	return out
-}
 
 // WriteRunJSON writes the results of a batch as a JSON array.
 func WriteRunJSON(w io.Writer, data []any) error { return writeJSON(w, data) }

@@ -198,16 +198,22 @@ func wbCombos(sr *sweep.StrategyResult) []*sweep.ComboResult {
 }
 
 // wbRecommended is the strategy each built-in scenario's memo must
-// recommend, worked out by hand from the strategies' recommended scales by
-// the rule of the spec (§8): every scenario asks for the largest model, so
-// the smallest recommended kL wins and the first strategy wins a tie ("" if
-// none is feasible).
-//   - harbour-tug: complete none; Froude 1:11.4; substitute 1:11.4 (tie).
-//   - sloped-pier: geometric none; tuned ice 1:8.75; distorted 1:8.46.
-//   - subsoiler-tine: joint cases 1:1.73; centrifuge 1:6.
+// recommend, worked out by hand by the rule of the spec (§8.1): a feasible
+// strategy whose relaxed-group mismatches stay within the threshold (10)
+// outranks one beyond it; within a class every scenario asks for the
+// largest model, so the smallest recommended kL wins ("" if none is
+// feasible).
+//   - harbour-tug: complete none; substitute none (no fluid is viscous
+//     enough); Froude 1:11.4.
+//   - sloped-pier: geometric none; tuned ice 1:8.75 and distorted 1:8.46,
+//     neither relaxes a law: the distorted model is larger.
+//   - subsoiler-tine: joint cases 1:1.73 (Froude mismatch 1.3, within);
+//     centrifuge 1:6.
 //   - iced-conductor: one strategy, 1:0.833.
-//   - telecom-mast: added mass 1:2.5; softer material 1:2.5 (tie).
-//   - pontoon-bridge: segmented 1:13.3; one-piece 1:13.3 (tie).
+//   - telecom-mast: added mass 1:2.5 relaxes nothing; the polycarbonate
+//     substitute only 1:12.2 (its density must match).
+//   - pontoon-bridge: both relax viscosity beyond the threshold; segmented
+//     1:13.3 against one-piece 1:27.3.
 var wbRecommended = map[string]string{
 	"harbour-tug":    "Froude scaling",
 	"sloped-pier":    "distorted thickness",

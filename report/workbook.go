@@ -137,6 +137,9 @@ func writeWorkbook(w io.Writer, res *sweep.Result, maps ...string) error {
 	if err := writeWindows(f, res, bold); err != nil {
 		return err
 	}
+	if err := writeTradeoffs(f, res, bold); err != nil {
+		return err
+	}
 	if err := writeLaws(f, res, bold); err != nil {
 		return err
 	}
@@ -271,17 +274,24 @@ func writeSummary(f *excelize.File, res *sweep.Result, bold, title int) error {
 		excelize.Cell{StyleID: bold, Value: "small-model edge set by"}, excelize.Cell{StyleID: bold, Value: "recommended (1:x)"},
 		excelize.Cell{StyleID: bold, Value: "model length [m]"}, excelize.Cell{StyleID: bold, Value: "cost [" + st.Currency + "]"},
 		excelize.Cell{StyleID: bold, Value: "best candidate / reason"},
-		excelize.Cell{StyleID: bold, Value: fmt.Sprintf("robust window, P ≥ %.0f %% (1:x)", 100*st.RobustLevel)}})
+		excelize.Cell{StyleID: bold, Value: fmt.Sprintf("robust window, P ≥ %.0f %% (1:x)", 100*st.RobustLevel)},
+		excelize.Cell{StyleID: bold, Value: "rank"}, excelize.Cell{StyleID: bold, Value: "why it ranks there"},
+		excelize.Cell{StyleID: bold, Value: "assumptions"}})
 	for _, sr := range res.Strategies {
 		c := sr.Best
+		rank, why := rankText(res, sr), ""
+		if e := res.RankOf(sr.Name); e != nil {
+			why = e.Reason
+		}
 		if c == nil {
-			rows = append(rows, []any{sr.Name, sr.Technique, "none", "", "", "", "", "", firstFailing(sr)})
+			rows = append(rows, []any{sr.Name, sr.Technique, "none", "", "", "", "", "", firstFailing(sr), "", rank, why})
 			continue
 		}
 		large, small := Edges(c.Window)
 		rows = append(rows, []any{sr.Name, sr.Technique, WindowText(c.Window), large, small, sweep.Scale(c.Recommended),
-			sig(c.ModelLength), money(c.Cost), Candidate(c), RobustText(c)})
+			sig(c.ModelLength), money(c.Cost), Candidate(c), RobustText(c), rank, why, strings.Join(AssumptionLines(res, sr), "; ")})
 	}
+	rows = append(rows, summaryVerdicts(res, bold)...)
 	for _, r := range rows {
 		if err := s.add(r...); err != nil {
 			return err

@@ -18,6 +18,10 @@ type Result struct {
 	Plan       *Plan
 	Name       string
 	Strategies []*StrategyResult
+	// Ranking orders the strategies, recommended first (rank.go);
+	// Warnings are the study's (warnings.go).
+	Ranking  []RankEntry
+	Warnings Warnings
 }
 
 // StrategyResult gathers the combinations of one strategy.
@@ -220,6 +224,7 @@ feed:
 		sr.Best = p.best(sr)
 		res.Strategies = append(res.Strategies, sr)
 	}
+	res.Ranking, res.Warnings = p.Rank(res.Strategies), p.Warnings
 	return res, nil
 }
 
@@ -302,8 +307,13 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 }
 
 // axisApplies reports whether the second axis changes this combination.
+// A case that fixes the axis quantity keeps its own factor, so the axis
+// does not apply to it.
 func (p *Plan) axisApplies(c *PlanCase, f *Facility) bool {
 	ax := p.Settings.Axis
+	if _, fixed := c.Fix[ax]; fixed {
+		return false
+	}
 	if isCondition(ax) {
 		return true
 	}

@@ -49,6 +49,9 @@ type Plan struct {
 	// Unballasted names the candidates whose mass cannot be ballasted
 	// (free bodies, grains: the Study setting unballasted).
 	Unballasted map[string]bool
+	// Warnings are the study's warnings: from reading, then from
+	// checking (see warnings.go).
+	Warnings Warnings
 }
 
 // ProtoItem is a prototype item in SI.
@@ -143,6 +146,9 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.prepareCosts(&ps)
 	p.prepareMeasures(&ps)
 	p.prepareUncertain(&ps)
+	p.Warnings = append(append(Warnings(nil), s.Warnings...), p.Warnings...) // reading first
+	p.warnDefaultLimits()
+	p.warnUnusedCapabilities()
 	if len(ps) == 0 {
 		p.buildGrid(&ps)
 	}
@@ -482,7 +488,7 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 				ok = false
 				continue
 			}
-			c.Fix[q] = k
+			p.addFix(c, q, k, ps)
 		}
 		c.Correction = strings.TrimSpace(r.Correction)
 		if c.Correction != "" && !slices.Contains(Corrections, c.Correction) {

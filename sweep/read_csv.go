@@ -50,6 +50,13 @@ func loadCSV(fsys fs.FS, dir, source, base string) (*Study, error) {
 		readCSVSheet(f, name, newSheetReader(s, sheet, &ps))
 		f.Close()
 	}
+	var names []string
+	for _, e := range entries {
+		if !e.IsDir() {
+			names = append(names, e.Name())
+		}
+	}
+	strayCSVFiles(names, s, &ps)
 	return finish(s, base, ps)
 }
 

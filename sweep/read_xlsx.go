@@ -134,6 +134,7 @@ func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 		}
 		readXLSXSheet(f, name, part, texts, newSheetReader(s, sheet, &ps))
 	}
+	strayWorksheets(list, s, &ps)
 	return finish(s, base, ps)
 }
 

@@ -117,6 +117,9 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 			continue
 		}
 		u.Rel = rel
+		if refuseTwiceUncertain(p.Uncertain, u, ps) {
+			continue
+		}
 		p.Uncertain = append(p.Uncertain, u)
 	}
 	if len(p.Uncertain) > 0 && p.Settings.Samples == 0 {

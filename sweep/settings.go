@@ -34,7 +34,12 @@ type Settings struct {
 	Seed                uint64  // of the draws, for reproducible results
 	RobustLevel         float64 // probability a robust scale must reach
 	Unballasted         string  // candidates whose mass cannot be ballasted, comma separated
-	cells               map[string]Cell
+	// WeakLaws may be relaxed at no cost, GoverningLaws never without
+	// counting against a strategy; MismatchThreshold is the mismatch
+	// beyond which a relaxed law is a scale effect (see rank.go).
+	WeakLaws, GoverningLaws []string
+	MismatchThreshold       float64
+	cells                   map[string]Cell
 }
 
 // settingDefaults lists every setting with its default; an empty default
@@ -46,6 +51,7 @@ var settingDefaults = map[string]string{
 	"prototype_medium": "", "prototype_medium_conditions": "", "prototype_material": "", "prototype_material_conditions": "",
 	"reference_length": "", "reference_speed": "", "max_points": "100000000", "inputs_date": "",
 	"samples": "0", "seed": "1", "robust_level": "0.95", "unballasted": "",
+	"weak_laws": "", "governing_laws": "", "mismatch_threshold": "10",
 }
 
 var settingRequired = []string{"scale_from", "scale_to"}
@@ -177,6 +183,7 @@ func parseSettings(s *Study, ps *Problems) Settings {
 		ps.Add(c.Cell, "robust_level must be a probability between 0 and 1 (0.95 for 95 %%)")
 		st.RobustLevel = 0.95
 	}
+	parseRankSettings(s, &st, ps)
 	return st
 }
 

@@ -107,6 +107,9 @@ type Study struct {
 	Costs      []CostRow
 	Measures   []MeasureRow
 	Uncertain  []UncertainRow
+	// Warnings are what reading found but did not stop at (a file
+	// that is no sheet of a study).
+	Warnings Warnings
 }
 
 // UncertainRow gives an input a distribution: a prototype item (of blank),

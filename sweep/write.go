@@ -494,7 +494,7 @@ var instructions = []string{
 	"Drop-down lists offer the allowed names; the Lists sheet holds them all.",
 	"A study may also be kept as a folder of CSV files, one per sheet (Study.csv, Prototype.csv, ...), with the same columns.",
 	"# Sheets",
-	"Study: the settings, one per row (setting, value, unit, note): the study's name, the scale range to sweep (scale_from and scale_to, as kL), the number of points, an optional second axis, the tolerance for substitute materials, the currency, and the rule for the recommended scale.",
+	"Study: the settings, one per row (setting, value, unit, note): the study's name, the scale range to sweep (scale_from and scale_to, as kL), the number of points, an optional second axis, the tolerance for substitute materials, the currency, and the rule for the recommended scale. Across strategies, one that relaxes a law beyond a mismatch factor of mismatch_threshold (10) ranks after one that does not; weak_laws lists laws whose relaxation costs nothing, governing_laws laws whose relaxation always counts.",
 	"Prototype: the prototype items (item, value, unit, scales_as): each a named value and the quantity it scales as (length, velocity, force, ... or none for a count that does not scale).",
 	"Media: candidate model fluids, soils or ices (name, library_entry, conditions), e.g. fresh water at 15C; one row per candidate.",
 	"Materials: candidate model materials (name, library_entry, conditions); one row per candidate.",

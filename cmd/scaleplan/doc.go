@@ -21,7 +21,7 @@ Commands:
 
 	run        sweep studies; write workbooks, feasibility maps and memos
 	init       write a built-in scenario as a study to edit
-	check      report every problem of a study with its sheet and cell
+	check      report every problem and warning of studies with sheet and cell
 	rules      solve the scale laws of one strategy
 	groups     Buckingham pi groups of a list of variables
 	materials  the library of model materials and media
@@ -42,27 +42,81 @@ unknown command or flag, a missing required flag or flag value).
 Each STUDY is an .xlsx workbook or a folder of .csv sheets (the layout is in
 the README); with none, the built-in scenarios run. Studies run in
 parallel. For each, the output folder (default scaleplan-out) receives
-NAME.xlsx, NAME.memo.md and the feasibility maps; a short table per study
-is printed, or with --json the same as data (keys study, convention,
-strategies: name, technique, feasible, reason, best: window with the limit
-at each edge, recommended_kL, recommended_scale, model_length_m, cost).
-Outputs are written to a hidden staging folder and moved into place when
-complete, so an interrupt leaves nothing half-written; an output folder
-that would hold an input is refused. A sweep larger than max_points
-(1e8 by default) is refused; --max-points raises the bound.
+NAME.xlsx, NAME.memo.md and the feasibility maps (with two strategies or
+more, also NAME.tradeoffs.png: each strategy's scale against its worst
+relaxed mismatch); a short table per study is printed, with the strategies
+ranked, the recommendation and why, what each recommendation assumes and
+the study's warnings. Outputs are written to a hidden staging folder and
+moved into place when complete, so an interrupt leaves nothing
+half-written; an output folder that would hold an input is refused. A
+sweep larger than max_points (1e8 by default) is refused; --max-points
+raises the bound.
+
+The recommendation weighs scale effects: a feasible strategy whose relaxed
+laws stay within a mismatch factor of mismatch_threshold (10 unless the
+Study sheet says otherwise) ranks before one beyond it, whatever the model
+sizes; a law listed in weak_laws never counts, one in governing_laws
+always does; within a class the larger model ranks first (the cheaper with
+recommend = cheapest), and infeasible strategies come last.
+
+With --json the same is printed as data, a list with one object per study:
+
+	study, convention   the study's name and the scale convention
+	axis                {name, unit} of the second axis, or null
+	warnings            the study's warnings (text with the place)
+	strategies          one object per strategy:
+	  name, technique, feasible, rank
+	  reason            why it ranks there (or what closes its window)
+	  warnings          the strategy's own warnings
+	  relaxed           [{law, group, ratio (π_p/π_m, null if unknown), weak}]
+	  fixed             [{quantity, factor}]: the free choices it fixes
+	  best              null, or its recommended combination:
+	    case, medium, material, facility
+	    axis_value      the second-axis value assumed (SI), or null
+	    window          [{from_kL, to_kL, large_model_edge, small_model_edge}]
+	    recommended_kL, recommended_scale, model_length_m, cost
+	    cheapest_kL, cheapest_cost   within this combination's window
+	    cheapest_option {medium, material, facility, kL, scale, cost}:
+	                    the cheapest over every combination, or null
+	    robust_window   as window, or null without uncertain inputs
+	    required        [{quantity, unit, at_recommended,
+	                      matches: [{entry, conditions, value}]}]
+	    larger_model    {kL, scale, limit, needs: [{capability, unit,
+	                     at_least, value, have, limit}]}: what the next
+	                    larger scale would need, or null
+	ranking             [{strategy, rank, reason}], best first
+	outputs             the files written
+
+A study that cannot run appears as {study, error}. Numbers that do not
+exist are null. An invented drag anchor in clay, where a centrifuge that
+relaxes nothing outranks a larger 1 g model whose Froude number is eleven
+times too large:
+
+	$ scaleplan run testdata/drag-anchor --json --out scaleplan-out
 
 # init and check
 
 	scaleplan init FILE [--scenario NAME]
 	scaleplan init FILE --synthetic POINTSxAXISxCANDIDATESxSTRATEGIES
-	scaleplan check STUDY
+	scaleplan check STUDY ... [--json]
 
 init writes a filled study (a workbook when FILE ends in .xlsx, otherwise a
-folder of .csv sheets) and never writes over a file. check loads a study
-and reports every problem at once, each with its sheet and cell, and exits
-1 if there is any. The scenarios:
+folder of .csv sheets) and never writes over a file. check loads each study
+and reports every problem at once, each with its sheet and cell, and every
+warning: a file or worksheet that is no sheet of a study, a default
+facility limit not applied because the study lacks the item it names, a
+facility capability no limit uses, a free choice fixed twice with the same
+factor. Problems (also a sheet present twice under names that differ only
+in case, a fix given twice with different factors, an uncertain input given
+twice) make check exit 1; warnings alone exit 0, and check says how many.
+With --json, one object per study: study, ok, problems ([{place,
+message}]) and warnings. The scenarios:
 
 	$ scaleplan init --list
+
+	$ scaleplan check testdata/drag-anchor testdata/anchor-with-strays
+
+	$ scaleplan check testdata/drag-anchor testdata/anchor-with-strays --json
 
 # materials
 

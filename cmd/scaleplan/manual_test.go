@@ -6,6 +6,7 @@ import (
 	"os"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"strings"
 	"testing"
 )
@@ -50,11 +51,28 @@ func TestManualExamples(t *testing.T) {
 	for _, cmd := range manualExamples(t) {
 		t.Run(cmd, func(t *testing.T) {
 			var stdout, stderr bytes.Buffer
-			code := run(strings.Fields(cmd), &stdout, &stderr)
+			// An example that writes outputs writes them into a temporary
+			// folder, named in the output as the example names it.
+			args := strings.Fields(cmd)
+			out := ""
+			for i, a := range args {
+				if a == "--out" && i+1 < len(args) {
+					out, args[i+1] = args[i+1], t.TempDir()
+				}
+			}
+			code := run(args, &stdout, &stderr)
 			if code != 0 {
 				t.Fatalf("exit %d: %s", code, stderr.String())
+			}
+			if out != "" {
+				got := strings.ReplaceAll(stdout.String(), slashes(args[slices.Index(args, "--out")+1]), slashes(out))
+				stdout.Reset()
+				stdout.WriteString(got)
 			}
 			goldenCheck(t, filepath.Base(goldenName(cmd)), stdout.Bytes())
 		})
 	}
 }
+
+// slashes is a path as JSON writes it (a backslash escaped).
+func slashes(p string) string { return strings.ReplaceAll(p, `\`, `\\`) }

@@ -86,6 +86,9 @@ func runCommand() *cli.Command {
 			for _, o := range outcomes {
 				if o.Err != nil {
 					failed = append(failed, fmt.Sprintf("%s:\n%s", o.Name, indent(o.Err.Error())))
+					if c.Bool("json") {
+						data = append(data, report.RunErrorData(o.Name, o.Err))
+					}
 					continue
 				}
 				// The output folder is made only when there is something

@@ -1,0 +1,229 @@
+package sweep
+
+import (
+	"os"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/xuri/excelize/v2"
+)
+
+// hasWarning fails the test unless exactly one warning holds every part.
+func hasWarning(t *testing.T, ws Warnings, parts ...string) Warning {
+	t.Helper()
+	var found []Warning
+	for _, w := range ws {
+		ok := true
+		for _, p := range parts {
+			ok = ok && strings.Contains(w.String(), p)
+		}
+		if ok {
+			found = append(found, w)
+		}
+	}
+	if len(found) != 1 {
+		t.Fatalf("want one warning with %q, got %d in %q", parts, len(found), ws.Strings())
+	}
+	return found[0]
+}
+
+func TestWarnStrayCSVFile(t *testing.T) {
+	sheets := minimalCSV()
+	sheets["Limit"] = "applies_to,limit,expression,source\nall,short,hull_length <= 1 m,\n"
+	dir := writeFolder(t, sheets)
+	for _, f := range []string{"notes.txt", ".gitkeep", "~$Study.csv"} {
+		if err := os.WriteFile(filepath.Join(dir, f), []byte("x"), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	s, err := Load(dir)
+	checkProblems(t, err, nil)
+	hasWarning(t, s.Warnings, "Limit.csv is not a sheet of a study; did you mean Limits.csv?")
+	hasWarning(t, s.Warnings, "notes.txt is not a sheet of a study and is not read")
+	if len(s.Warnings) != 2 {
+		t.Errorf("hidden and lock files should pass silently: %q", s.Warnings.Strings())
+	}
+	// The warning reaches the plan, and so every output.
+	anchor := filepath.Join(t.TempDir(), "anchor")
+	if err := os.CopyFS(anchor, os.DirFS("testdata/anchor")); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(anchor, "Limit.csv"), []byte(sheets["Limit"]), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	s, err = Load(anchor)
+	checkProblems(t, err, nil)
+	plan, err := prepare(t, s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	hasWarning(t, plan.Warnings, "Limit.csv is not a sheet")
+}
+
+func TestWarnStrayWorksheet(t *testing.T) {
+	b := workbook(t, sampleStudy(), func(f *excelize.File) {
+		if _, err := f.NewSheet("Limit"); err != nil {
+			t.Fatal(err)
+		}
+	})
+	s, err := loadBytes(t, b)
+	checkProblems(t, err, nil)
+	hasWarning(t, s.Warnings, `the worksheet "Limit" is not a sheet of a study and is not read; did you mean Limits?`)
+	if len(s.Warnings) != 1 {
+		t.Errorf("the template's own sheets must not warn: %q", s.Warnings.Strings())
+	}
+}
+
+func TestRefuseCaseTwinSheets(t *testing.T) {
+	dir := writeFolder(t, minimalCSV())
+	if err := os.WriteFile(filepath.Join(dir, "limits.csv"), []byte("applies_to,limit,expression,source\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if err := os.WriteFile(filepath.Join(dir, "Limits.csv"), []byte("applies_to,limit,expression,source\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	if names, _ := os.ReadDir(dir); len(names) != 5 {
+		t.Skip("the file system ignores case")
+	}
+	_, err := Load(dir)
+	checkProblems(t, err, []string{"Limits: the folder holds Limits.csv and limits.csv: names that differ only in case are one sheet, so which one counts is ambiguous; keep one of them"})
+}
+
+func TestRefuseCaseTwinWorksheets(t *testing.T) {
+	// A spreadsheet program refuses such names; a generated file may hold
+	// them. Rename a second sheet in the workbook's XML.
+	b := workbook(t, sampleStudy(), func(f *excelize.File) {
+		if _, err := f.NewSheet("LIMITX"); err != nil {
+			t.Fatal(err)
+		}
+	})
+	b = rezip(t, b, func(name string, data []byte) []byte {
+		if name == "xl/workbook.xml" {
+			return []byte(strings.Replace(string(data), `name="LIMITX"`, `name="limits"`, 1))
+		}
+		return data
+	})
+	_, err := loadBytes(t, b)
+	if err == nil || !strings.Contains(err.Error(), "Limits: the workbook holds the worksheets Limits and limits") {
+		t.Errorf("got %v", err)
+	}
+}
+
+func TestWarnDefaultLimitNotApplied(t *testing.T) {
+	s := anchorStudy(t)
+	for i, it := range s.Prototype {
+		if it.Name == "design_force" {
+			s.Prototype[i].Name = "design_forces"
+		}
+	}
+	plan, err := prepare(t, s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Both facilities state a force resolution, so the limit concerns
+	// both; each is named once.
+	for _, f := range []string{"Clay bin (a soil_bin)", "Beam centrifuge (a centrifuge)"} {
+		hasWarning(t, plan.Warnings, "default limits of "+f, `"force above resolution"`, "needs the prototype item design_force (did you mean design_forces?)")
+	}
+	// The sweep skips the limit indeed: the small-model edge moves to the
+	// end of the sweep.
+	res, err := plan.Run(t.Context())
+	if err != nil {
+		t.Fatal(err)
+	}
+	if w := strategy(t, res, "1 g bin").Best.Window; !relClose(w[len(w)-1].Hi, 400, 1e-9) {
+		t.Errorf("window %v: the limit should not apply", w)
+	}
+	if len(res.Warnings) != len(plan.Warnings) {
+		t.Errorf("the result's warnings %q differ from the plan's", res.Warnings.Strings())
+	}
+	// With the item present, no such warning.
+	plan, err = prepare(t, anchorStudy(t))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(plan.Warnings) != 0 {
+		t.Errorf("unexpected warnings %q", plan.Warnings.Strings())
+	}
+}
+
+func TestWarnUnusedCapability(t *testing.T) {
+	s := anchorStudy(t)
+	s.Facilities = append(s.Facilities, FacilityRow{Facility: "Clay bin", Type: "soil_bin", Capability: "bin_length", Value: "30", Unit: "m", Row: 16})
+	plan, err := prepare(t, s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := hasWarning(t, plan.Warnings, "bin_length of Clay bin is stated but no limit, cost or measure uses it")
+	if w.Cell.String() != "Facilities!C16" {
+		t.Errorf("place %s", w.Cell)
+	}
+	// hourly_rate is used by a cost; g_level_max by a default limit:
+	// neither warns.
+	for _, w := range plan.Warnings {
+		if strings.Contains(w.Msg, "hourly_rate") || strings.Contains(w.Msg, "g_level_max") {
+			t.Errorf("used capability warned: %s", w)
+		}
+	}
+}
+
+// conductorFixed is the conductor with its velocity scale fixed in the
+// Strategies cell instead of swept.
+func conductorFixed(t *testing.T, fix string, keepAxis bool) *Study {
+	s := scenario(t, "conductor")
+	if !keepAxis {
+		for _, k := range []string{"axis", "axis_from", "axis_to", "axis_points", "axis_spacing"} {
+			delete(s.Settings, k)
+		}
+	}
+	s.Strategies[0].Fix = fix
+	return s
+}
+
+func TestFixGivenTwice(t *testing.T) {
+	msg := prepareErr(t, conductorFixed(t, "velocity=2, velocity=3", false))
+	if !strings.Contains(msg, "Strategies!I2: velocity is fixed twice, at 2 and at 3: which one holds is ambiguous; keep one") {
+		t.Errorf("got %q", msg)
+	}
+	plan, err := prepare(t, conductorFixed(t, "velocity=2; velocity=2", false))
+	if err != nil {
+		t.Fatal(err)
+	}
+	w := hasWarning(t, plan.Warnings, "Strategies!I2: velocity=2 is given twice; it is taken once")
+	if w.Strategy != "spring-mounted section" {
+		t.Errorf("the warning belongs to the strategy: %+v", w)
+	}
+	if len(plan.Warnings.Of("spring-mounted section")) != 1 || len(plan.Warnings.Study()) != len(plan.Warnings)-1 {
+		t.Errorf("split of warnings: %q", plan.Warnings.Strings())
+	}
+}
+
+func TestUncertainGivenTwice(t *testing.T) {
+	s := scenario(t, "tug")
+	dup := s.Uncertain[0]
+	dup.Spread, dup.Row = "8%", len(s.Uncertain)+2
+	s.Uncertain = append(s.Uncertain, dup)
+	msg := prepareErr(t, s)
+	want := "Uncertainty!A" + strconv.Itoa(dup.Row) + ": design_speed is given uncertain twice (also on row 2): which spread holds is ambiguous; keep one row"
+	if !strings.Contains(msg, want) {
+		t.Errorf("got %q, want %q", msg, want)
+	}
+}
+
+// TestAxisDoesNotApplyToAFixedCase: a case that fixes the axis quantity
+// keeps its factor, so it has no axis value and no map over the axis.
+func TestAxisDoesNotApplyToAFixedCase(t *testing.T) {
+	res := runStudy(t, conductorFixed(t, "velocity=2", true))
+	c := res.Strategies[0].Combos[0]
+	if len(c.AxisMargins) != 0 || !isNaN(c.Axis) {
+		t.Errorf("a fixed case swept over the axis: axis %v, %d rows", c.Axis, len(c.AxisMargins))
+	}
+	free := runStudy(t, scenario(t, "conductor")).Strategies[0].Combos[0]
+	if len(free.AxisMargins) < 2 || isNaN(free.Axis) {
+		t.Errorf("the free case lost its axis")
+	}
+}
+
+func isNaN(x float64) bool { return x != x }
