@@ -96,10 +96,14 @@ type row struct {
 	c   []*big.Rat
 	tag string // what the equation expresses, for naming conditions
 	law string
+	// pivot, when ≥ 0, is the quantity column the row pivots on if it is
+	// still non-zero after reduction (a late definition pivots on the
+	// quantity it defines).
+	pivot int
 }
 
 func newRow(n int, tag, law string) row {
-	r := row{c: make([]*big.Rat, n), tag: tag, law: law}
+	r := row{c: make([]*big.Rat, n), tag: tag, law: law, pivot: -1}
 	for i := range r.c {
 		r.c[i] = new(big.Rat)
 	}
@@ -173,6 +177,13 @@ func Solve(s Strategy) (*Solution, error) {
 		r.addProduct(l.Force, -1)
 		rows = append(rows, r)
 	}
+	for _, d := range lateDefinitions {
+		r := newRow(width, "the definition "+d.Quantity+" = "+d.Of.String(), "")
+		r.pivot = quantityIndex[d.Quantity]
+		r.c[r.pivot].SetInt64(1)
+		r.addProduct(d.Of, -1)
+		rows = append(rows, r)
+	}
 
 	ech := eliminate(rows, nq)
 	sol := &Solution{Strategy: s, Reference: reference(s)}
@@ -242,7 +253,11 @@ func eliminate(rows []row, nq int) echelon {
 	}
 	for _, r := range rows {
 		reduce(r, e.pivots, e.pivotCol)
-		if col := firstNonZero(r, 0, nq); col >= 0 {
+		col := firstNonZero(r, 0, nq)
+		if r.pivot >= 0 && r.c[r.pivot].Sign() != 0 {
+			col = r.pivot
+		}
+		if col >= 0 {
 			normalise(r, col)
 			e.pivots = append(e.pivots, r)
 			e.pivotCol = append(e.pivotCol, col)
