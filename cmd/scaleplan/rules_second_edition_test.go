@@ -23,7 +23,7 @@ func TestRulesSecondEditionCases(t *testing.T) {
 		{
 			name:   "distorted river model",
 			source: "Hughes 1993 ch. 2; Chanson 2004 ch. 14 (distorted Froude models; chapters from memory)",
-			args:   "rules --retain inertia,hydrostatic,bed_friction --untie thickness --given density=1,gravity=1,thickness=50 --length 500 --json",
+			args:   "scaleplan rules --retain inertia,hydrostatic,bed_friction --untie thickness --given density=1,gravity=1,thickness=50 --length 500 --json",
 			factors: map[string]float64{"velocity": math.Sqrt(50), "discharge": 500 * math.Pow(50, 1.5),
 				"time": 500 / math.Sqrt(50), "roughness": math.Pow(50, 2.0/3) / math.Sqrt(500)},
 			consistent: true, required: "roughness",
@@ -31,21 +31,21 @@ func TestRulesSecondEditionCases(t *testing.T) {
 		{
 			name:       "centrifuge, same soil: inconsistent",
 			source:     "Garnier et al. 2007, IJPMG 7(3), table of scaling laws (from memory)",
-			args:       "rules --retain inertia,gravity,consolidation --given density=1,gravity=1/50,consolidation_coefficient=1 --length 50 --json",
+			args:       "scaleplan rules --retain inertia,gravity,consolidation --given density=1,gravity=1/50,consolidation_coefficient=1 --length 50 --json",
 			factors:    map[string]float64{"time": 50, "velocity": 1},
 			consistent: false, condition: "time factor",
 		},
 		{
 			name:       "centrifuge, viscous pore fluid",
 			source:     "Garnier et al. 2007 (from memory): c_v,m = c_v,p/N with a pore fluid N times more viscous",
-			args:       "rules --retain inertia,gravity,consolidation --given density=1,gravity=1/50 --length 50 --json",
+			args:       "scaleplan rules --retain inertia,gravity,consolidation --given density=1,gravity=1/50 --length 50 --json",
 			factors:    map[string]float64{"consolidation_coefficient": 50, "time": 50},
 			consistent: true, required: "consolidation_coefficient",
 		},
 		{
 			name:       "depressurised tank",
 			source:     "ITTC Recommended Procedures, cavitation tests (from memory): (p − p_v) scales as kL",
-			args:       "rules --retain inertia,gravity,cavitation --given density=1,gravity=1 --length 25 --json",
+			args:       "scaleplan rules --retain inertia,gravity,cavitation --given density=1,gravity=1 --length 25 --json",
 			factors:    map[string]float64{"pressure": 25, "velocity": 5},
 			consistent: true, required: "pressure",
 		},
