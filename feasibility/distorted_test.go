@@ -159,3 +159,40 @@ func TestCavitationPressure(t *testing.T) {
 		t.Error("zero pressure scale: want an error")
 	}
 }
+
+// A centrifuge whose g-level follows the scale (N = kL): gravity tied to
+// kL^-1 rather than given. Garnier et al. 2007 (from memory): dynamic time
+// N, consolidation time N²; so the same soil is similar only at kL = 1.
+func TestSolveGravityTiedToScale(t *testing.T) {
+	tie := []LengthTie{{"gravity", Int(-1)}}
+	same, err := Solve(Strategy{Retain: []string{"inertia", "gravity", "consolidation"},
+		Given: []string{"density", "consolidation_coefficient"}, Tied: tie})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(same.Conditions) != 1 || same.Conditions[0].Protects != "time factor" {
+		t.Fatalf("conditions = %+v, want one protecting the time factor", same.Conditions)
+	}
+	if got, want := same.Conditions[0].Equation(same.Params), "k_consolidation_coefficient = kL"; got != want {
+		t.Errorf("condition %q, want %q", got, want)
+	}
+	checks, _ := same.Check(Values{"density": 1, "consolidation_coefficient": 1})
+	if len(checks) != 1 || !checks[0].PinsLength || math.Abs(checks[0].Length-1) > 1e-12 {
+		t.Errorf("checks = %+v, want kL pinned at 1", checks)
+	}
+	viscous, err := Solve(Strategy{Retain: []string{"inertia", "gravity", "consolidation"}, Given: []string{"density"}, Tied: tie})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for q, want := range map[string]string{"gravity": "-1", "time": "1", "velocity": "0", "consolidation_coefficient": "1"} {
+		if got := lengthExp(t, viscous, q); got != want {
+			t.Errorf("exponent of kL in k_%s = %s, want %s", q, got, want)
+		}
+	}
+	if !slices.Equal(viscous.Required, []string{"consolidation_coefficient"}) || len(viscous.Free) != 0 {
+		t.Errorf("required %v free %v, want [consolidation_coefficient] and none", viscous.Required, viscous.Free)
+	}
+	if _, err := Solve(Strategy{Retain: []string{"inertia", "gravity"}, Given: []string{"gravity"}, Tied: tie}); err == nil {
+		t.Error("gravity both given and tied: want an error")
+	}
+}

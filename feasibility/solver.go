@@ -147,6 +147,12 @@ func Solve(s Strategy) (*Solution, error) {
 		r.c[nq+j].SetInt64(-1)
 		rows = append(rows, r)
 	}
+	for _, t := range s.Tied {
+		r := newRow(width, fmt.Sprintf("the tie k_%s = kL^%s", t.Quantity, t.Exp), "")
+		r.c[quantityIndex[t.Quantity]].SetInt64(1)
+		r.c[nq].Sub(r.c[nq], t.Exp.big())
+		rows = append(rows, r)
+	}
 	for _, d := range definitions {
 		r := newRow(width, "the definition "+d.Quantity+" = "+d.Of.String(), "")
 		r.c[quantityIndex[d.Quantity]].SetInt64(1)
@@ -399,7 +405,7 @@ func (sol *Solution) findRequired() {
 	}
 	req := map[string]bool{}
 	for i, l := range sol.Laws {
-		if l.Status != Determined || l.Quantity == "force" || l.Quantity == "velocity" {
+		if l.Status != Determined || l.Quantity == "force" || l.Quantity == "velocity" || sol.Strategy.isTied(l.Quantity) {
 			continue
 		}
 		if quantities[i].Kind == Property || (quantities[i].Kind == Response && inLaw[l.Quantity]) ||
@@ -428,6 +434,15 @@ func (sol *Solution) findRequired() {
 			sol.Required = append(sol.Required, l.Quantity)
 		}
 	}
+}
+
+func (s Strategy) isTied(q string) bool {
+	for _, t := range s.Tied {
+		if t.Quantity == q {
+			return true
+		}
+	}
+	return false
 }
 
 // mismatches forms, for each relaxed law, the scale factor of its group

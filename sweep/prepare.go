@@ -457,6 +457,14 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			Untie: qCol("untie", r.Untie), Given: qCol("given", r.Given), Tuned: qCol("tuned", r.Tuned),
 		}
 		for _, item := range splitNames(r.Fix) {
+			if tie, isTie, err := gLevelTie(item); isTie {
+				if err != nil {
+					ps.Add(At("Strategies", r.Row, "fix"), "%v", err)
+					ok = false
+				}
+				strat.Tied = append(strat.Tied, tie)
+				continue
+			}
 			q, val, found := strings.Cut(item, "=")
 			k, err := strconv.ParseFloat(val, 64)
 			if !found || err != nil || !(k > 0) || math.IsInf(k, 0) {
