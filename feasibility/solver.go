@@ -191,7 +191,11 @@ func Solve(s Strategy) (*Solution, error) {
 		rows = append(rows, r)
 	}
 
-	ech := eliminate(rows, nq)
+	avoid := make([]bool, nq)
+	for _, q := range s.PreferFree {
+		avoid[quantityIndex[q]] = true
+	}
+	ech := eliminate(rows, nq, avoid)
 	sol := &Solution{Strategy: s, Reference: reference(s)}
 	sol.classify(ech, params, nq)
 	if err := sol.checkTuned(); err != nil {
@@ -226,7 +230,10 @@ type echelon struct {
 // late in the column order are the ones left free); a row left with
 // parameters only is a compatibility condition and keeps the tag of the
 // equation that produced it; a row reduced to nothing is redundant.
-func eliminate(rows []row, nq int) echelon {
+//
+// avoid marks quantity columns to pivot on only when no other quantity
+// column is left in the row, so that they stay free if anything does.
+func eliminate(rows []row, nq int, avoid []bool) echelon {
 	var e echelon
 	tmp := new(big.Rat)
 	reduce := func(r row, by []row, cols []int) {
@@ -260,6 +267,14 @@ func eliminate(rows []row, nq int) echelon {
 	for _, r := range rows {
 		reduce(r, e.pivots, e.pivotCol)
 		col := firstNonZero(r, 0, nq)
+		if col >= 0 && avoid[col] {
+			for k := col + 1; k < nq; k++ {
+				if !avoid[k] && r.c[k].Sign() != 0 {
+					col = k
+					break
+				}
+			}
+		}
 		if r.pivot >= 0 && r.c[r.pivot].Sign() != 0 {
 			col = r.pivot
 		}

@@ -24,6 +24,11 @@ type Strategy struct {
 	// scale, set by the test rather than by a material: a centrifuge run
 	// at N = kL times gravity has k_gravity = kL^-1.
 	Tied []LengthTie
+	// PreferFree names quantities to leave as the free choices where the
+	// retained laws leave a direction undetermined (a study sweeping the
+	// vertical scale of a distorted model prefers thickness to velocity).
+	// It changes which quantity is named free, never the solution space.
+	PreferFree []string
 }
 
 // LengthTie ties a quantity's scale factor to the length scale:
@@ -85,6 +90,11 @@ func (s Strategy) validate() error {
 	}
 	if err := check("given", s.Given); err != nil {
 		return err
+	}
+	for _, n := range s.PreferFree {
+		if _, err := LookupQuantity(n); err != nil {
+			return err
+		}
 	}
 	if err := check("tuned", s.Tuned); err != nil {
 		return err

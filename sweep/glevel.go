@@ -38,3 +38,20 @@ func gLevelTie(item string) (tie feasibility.LengthTie, ok bool, err error) {
 	}
 	return feasibility.LengthTie{Quantity: "gravity", Exp: p.Neg()}, true, nil
 }
+
+// preferFree lists the quantities a study sweeps (the second axis) or
+// fixes, so that the solver names them as the free choices when the
+// retained laws leave a direction open: a distorted model whose vertical
+// scale is the axis gets thickness, not velocity, as its free choice.
+func (p *Plan) preferFree(fix map[string]float64) []string {
+	var out []string
+	if _, ok := feasibility.QuantityNamed(p.Settings.Axis); ok {
+		out = append(out, p.Settings.Axis)
+	}
+	for _, q := range feasibility.QuantityNames() {
+		if _, ok := fix[q]; ok && q != p.Settings.Axis {
+			out = append(out, q)
+		}
+	}
+	return out
+}
