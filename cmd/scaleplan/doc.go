@@ -142,6 +142,13 @@ Pressure drop in a rough pipe, with the repeating variables chosen:
 
 	$ scaleplan groups dp=Pa rho=kg/m^3 V=m/s D=m mu=Pa*s L=m eps=m --repeat rho,V,D
 
+Waves breaking on a slope (a dimensionless tan_a is combined with the wave
+steepness into the Iribarren number), and free convection (β·ΔT joins
+g·L³/ν² into the Grashof number, and Gr·Pr gives the Rayleigh number):
+
+	$ scaleplan groups tan_a=1 H=m lambda=m
+	$ scaleplan groups beta=1/K g=m/s^2 dT=K L=m nu=m^2/s alpha=m^2/s --repeat dT,L,nu
+
 # version
 
 	$ scaleplan version
