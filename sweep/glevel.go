@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"fmt"
+	"math"
 	"strings"
 
 	"scaleplan/feasibility"
@@ -54,4 +55,24 @@ func (p *Plan) preferFree(fix map[string]float64) []string {
 		}
 	}
 	return out
+}
+
+// tiedGLevel resolves the name g_level: when the strategy ties the g-level
+// to the scale, N = g_model/g_n = 1/k_gravity, a power of kL, in place of
+// the facility's fixed g_level; otherwise the facility's g_level, 1 when
+// it states none (the capability's default).
+func (x *combo) tiedGLevel(name string) (linForm, bool) {
+	if name != "g_level" {
+		return linForm{}, false
+	}
+	for _, t := range x.cas.Solution.Strategy.Tied {
+		if t.Quantity == "gravity" {
+			k, ok := x.lnK("gravity")
+			return linForm{C: -k.C, E: -k.E}, ok
+		}
+	}
+	if v, ok := x.caps[name]; ok {
+		return linForm{C: math.Log(v)}, true
+	}
+	return linForm{}, true
 }

@@ -754,6 +754,9 @@ func (p *Plan) dimResolver(f *Facility) func(string) (feasibility.Dimension, err
 		if c, ok := constants[name]; ok {
 			return c.dim, nil
 		}
+		if name == "g_level" { // every facility's g-level, 1 unless stated or tied
+			return feasibility.Dimension{}, nil
+		}
 		return feasibility.Dimension{}, unknownName(name, func() []string { return p.names(f) })
 	}
 }

@@ -113,6 +113,13 @@ func TestScenarioCaisson(t *testing.T) {
 	if got := measureAt(t, visc, "g-level"); !relClose(got, kL, 1e-9) {
 		t.Errorf("g-level %v, want N = kL = %v", got, kL)
 	}
+	// The g-level min limit names g_level, which follows the tie:
+	// margin = log10(kL/10) exactly.
+	for _, l := range visc.Limits {
+		if l.Name == "g-level min" && (!l.Linear || !relClose(l.B, 1, 1e-12) || math.Abs(l.A+1) > 1e-12) {
+			t.Errorf("g-level min: linear %v, margin %v + %v·log10 kL, want log10(kL/10)", l.Linear, l.A, l.B)
+		}
+	}
 	if got := visc.Factors["time"]; !relClose(got, kL, 1e-9) {
 		t.Errorf("k_time %v, want kL (dynamic and consolidation time alike)", got)
 	}
