@@ -3,6 +3,7 @@ package feasibility
 import (
 	"math"
 	"slices"
+	"strings"
 	"testing"
 )
 
@@ -194,5 +195,34 @@ func TestSolveGravityTiedToScale(t *testing.T) {
 	}
 	if _, err := Solve(Strategy{Retain: []string{"inertia", "gravity"}, Given: []string{"gravity"}, Tied: tie}); err == nil {
 		t.Error("gravity both given and tied: want an error")
+	}
+}
+
+// An untied thickness that no retained law uses is said, with the law a
+// distorted open-channel model needs; an untied quantity a law uses
+// (flexure, or bending through E·I) is not.
+func TestUntieWarnings(t *testing.T) {
+	cases := []struct {
+		s    Strategy
+		want int
+	}{
+		{Strategy{Retain: []string{"inertia", "gravity"}, Untie: []string{"thickness"}, Given: []string{"density", "gravity", "thickness"}}, 1},
+		{Strategy{Retain: []string{"inertia", "hydrostatic", "bed_friction"}, Untie: []string{"thickness"}, Given: []string{"density", "gravity"}}, 0},
+		{Strategy{Retain: []string{"inertia", "gravity", "flexure"}, Untie: []string{"thickness"}, Given: []string{"density", "gravity", "strength"}}, 0},
+		{Strategy{Retain: []string{"inertia", "gravity", "bending"}, Untie: []string{"area_moment"}, Given: []string{"density", "gravity", "modulus"}}, 0},
+		{Strategy{Retain: []string{"inertia", "gravity"}, Untie: []string{"area_moment"}, Given: []string{"density", "gravity"}}, 1},
+	}
+	for _, c := range cases {
+		sol, err := Solve(c.s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(sol.Warnings) != c.want {
+			t.Errorf("%v untie %v: warnings %q, want %d", c.s.Retain, c.s.Untie, sol.Warnings, c.want)
+		}
+	}
+	sol, _ := Solve(cases[0].s)
+	if !strings.Contains(sol.Warnings[0], "retain hydrostatic") {
+		t.Errorf("warning %q does not name the hydrostatic law", sol.Warnings[0])
 	}
 }

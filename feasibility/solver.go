@@ -86,6 +86,9 @@ type Solution struct {
 	Free       []string
 	Required   []string // properties solved for (tuned ones included)
 	Relaxed    []Mismatch
+	// Warnings are things about the request a user should hear, said in
+	// every output (an untied quantity no retained law uses).
+	Warnings []string
 
 	exp *mat.Dense // quantities × parameters, float exponents
 }
@@ -196,7 +199,7 @@ func Solve(s Strategy) (*Solution, error) {
 		avoid[quantityIndex[q]] = true
 	}
 	ech := eliminate(rows, nq, avoid)
-	sol := &Solution{Strategy: s, Reference: reference(s)}
+	sol := &Solution{Strategy: s, Reference: reference(s), Warnings: untieWarnings(s)}
 	sol.classify(ech, params, nq)
 	if err := sol.checkTuned(); err != nil {
 		return nil, err

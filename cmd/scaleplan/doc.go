@@ -106,6 +106,11 @@ the vertical scale; Manning's n is required):
 
 	$ scaleplan rules --retain inertia,hydrostatic,bed_friction --untie thickness --given density=1,gravity=1,thickness=50 --length 500 --json
 
+Retaining gravity instead leaves the velocity on the horizontal scale; the
+output warns that no retained law uses the untied thickness:
+
+	$ scaleplan rules --retain inertia,gravity --untie thickness --given density=1,gravity=1,thickness=50 --length 500
+
 Consolidation in a centrifuge at N = kL = 50 g with the prototype soil and
 pore water (inconsistent: the time factor needs c_v scaled by kL), and with
 the consolidation coefficient left to the model (a pore fluid 50 times more
