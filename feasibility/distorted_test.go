@@ -226,3 +226,22 @@ func TestUntieWarnings(t *testing.T) {
 		t.Errorf("warning %q does not name the hydrostatic law", sol.Warnings[0])
 	}
 }
+
+// Manning friction relaxed in an undistorted Froude model that keeps the
+// prototype's roughness: n should scale as kL^1/6 (Chanson 2004, ch. 14,
+// from memory), so the model is kL^1/6 too rough and the roughness number
+// h^4/3/(g·n²·L) is off by (kL^1/6)² = kL^1/3 — hand computation.
+func TestRelaxedBedFriction(t *testing.T) {
+	sol, err := Solve(Strategy{Retain: []string{"inertia", "hydrostatic"}, Relax: []string{"bed_friction"}, Given: []string{"density", "gravity", "roughness"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	m := sol.Relaxed[0]
+	if m.Group != "roughness number" || len(m.Missing) != 0 {
+		t.Fatalf("mismatch %+v", m)
+	}
+	got, ok, err := sol.MismatchValue(m, Values{"length": 50, "density": 1, "gravity": 1, "roughness": 1})
+	if err != nil || !ok || math.Abs(got-math.Cbrt(50)) > 1e-9*got {
+		t.Errorf("roughness-number mismatch %v (%v, %v), want 50^1/3 = %v", got, ok, err, math.Cbrt(50))
+	}
+}
