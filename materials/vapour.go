@@ -46,6 +46,6 @@ func seawaterSoundSpeed(t, S, D float64) float64 {
 
 const (
 	srcIF97Sat    = "IAPWS-IF97 (2007 revision) saturation-pressure equation, eq. 30, Table 34"
-	srcSharqawyPv = "Sharqawy, Lienhard & Zubair 2010, Desalination and Water Treatment 16:354 (Raoult-law vapour-pressure correlation) on IAPWS-IF97"
+	srcSharqawyPv = "Sharqawy, Lienhard & Zubair 2010, Desalination and Water Treatment 16:354 (Raoult-law vapour-pressure correlation; its coefficient 0.57357 from memory, not checked against the paper) on IAPWS-IF97"
 	srcMackenzieC = "Mackenzie 1981, J. Acoust. Soc. Am. 70:807 (nine-term equation), at the surface (depth 0)"
 )

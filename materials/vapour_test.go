@@ -27,7 +27,8 @@ func TestIF97SaturationPressure(t *testing.T) {
 }
 
 func TestSeawaterVapourPressure(t *testing.T) {
-	// Source: Sharqawy et al. 2010, Raoult-law correlation
+	// Source: Sharqawy et al. 2010, Raoult-law correlation (coefficient
+	// from memory, not checked against the paper)
 	// p_v,sw/p_v,w = 1/(1 + 0.57357·S/(1000 − S)); hand computation at
 	// S = 35 g/kg: 1/(1 + 0.57357·35/965) = 0.979622. Seawater's vapour
 	// pressure is about 2 % below that of pure water (common
