@@ -61,3 +61,18 @@ func TestGLevelTieProblems(t *testing.T) {
 		}
 	}
 }
+
+// Without the second axis, a distorted model's free choice is its
+// vertical scale, and the problem says so at the fix cell.
+func TestDistortedFreeChoiceIsVerticalScale(t *testing.T) {
+	s := scenario(t, "estuary")
+	for name := range s.Settings {
+		if strings.HasPrefix(name, "axis") {
+			delete(s.Settings, name)
+		}
+	}
+	_, err := prepare(t, s)
+	if err == nil || !strings.Contains(err.Error(), "Strategies!I3") || !strings.Contains(err.Error(), "leaves the thickness scale free") {
+		t.Errorf("problems %v, want the thickness scale named free at Strategies!I3", err)
+	}
+}

@@ -479,7 +479,7 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			}
 			c.Fix[q] = k
 		}
-		strat.PreferFree = p.preferFree(c.Fix)
+		strat.PreferFree = p.preferFree(c.Fix, strat.Untie)
 		c.Correction = strings.TrimSpace(r.Correction)
 		if c.Correction != "" && !slices.Contains(Corrections, c.Correction) {
 			ps.Add(At("Strategies", r.Row, "correction"), "unknown correction %q%s", c.Correction, feasibility.Suggest(c.Correction, Corrections))
