@@ -82,3 +82,26 @@ func TestRulesSecondEditionCases(t *testing.T) {
 		})
 	}
 }
+
+// Without a given vertical scale, a distorted model's free choice is the
+// vertical scale itself, and the velocity follows it (k_V = kz^1/2).
+func TestRulesDistortedFreeVerticalScale(t *testing.T) {
+	var out, errb bytes.Buffer
+	args := "scaleplan rules --retain inertia,hydrostatic,bed_friction --untie thickness --given density=1,gravity=1 --json"
+	if code := run(strings.Fields(args), &out, &errb); code != 0 {
+		t.Fatalf("exit %d: %s", code, errb.String())
+	}
+	var got struct {
+		Free      []string                     `json:"free"`
+		Exponents map[string]map[string]string `json:"exponents"`
+	}
+	if err := json.Unmarshal(out.Bytes(), &got); err != nil {
+		t.Fatal(err)
+	}
+	if !slices.Equal(got.Free, []string{"thickness"}) {
+		t.Errorf("free = %v, want [thickness]", got.Free)
+	}
+	if e := got.Exponents["velocity"]["thickness"]; e != "1/2" {
+		t.Errorf("velocity exponent of k_thickness = %q, want 1/2", e)
+	}
+}
