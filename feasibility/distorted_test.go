@@ -114,8 +114,8 @@ func TestSolveSecondEditionCases(t *testing.T) {
 		}
 	})
 	t.Run("depressurised tank", func(t *testing.T) {
-		// ITTC Recommended Procedures 7.5-02-03-03.x (cavitation tests,
-		// from memory): the cavitation number σ = (p − p_v)/(½ρV²) is kept,
+		// ITTC Recommended Procedure 7.5-02-03-03.1, Model-Scale Cavitation Test (number and
+		// section from memory): the cavitation number σ = (p − p_v)/(½ρV²) is kept,
 		// so in a Froude model of the same liquid (p − p_v) scales as kL.
 		sol, err := Solve(Strategy{Retain: []string{"inertia", "gravity", "cavitation"}, Given: []string{"density", "gravity"}})
 		if err != nil {
