@@ -17,9 +17,10 @@ func TestStudyCavitationTunnelPressure(t *testing.T) {
 		t.Fatal(err)
 	}
 	res := runStudy(t, s)
-	b := strategy(t, res, "cavitation").Best
-	if b == nil {
-		t.Fatal("no window")
+	sr := strategy(t, res, "cavitation")
+	b := comboIn(t, sr, "Test tunnel")
+	if b.Window.Empty() {
+		t.Fatal("no window in the tunnel")
 	}
 	pvm := res.Plan.Media[0].Props["vapour_pressure"].Value
 	// IAPWS saturation pressure of water at 20 °C: 2.339 kPa.
@@ -54,5 +55,12 @@ func TestStudyCavitationTunnelPressure(t *testing.T) {
 	}
 	if got := b.Factors["pressure"]; !relClose(got, kRho*b.Recommended, 1e-9) {
 		t.Errorf("k_pressure %v, want k_ρ·kL = %v", got, kRho*b.Recommended)
+	}
+	// The depressurised towing tank: the same requirement, bounded by its
+	// lowest air pressure, 4 kPa.
+	tank := comboIn(t, sr, "Vacuum tank")
+	edge = margin / (kRho * (4000 - pvm))
+	if w := tank.Window[0]; w.HiLimit != "tank pressure min" || math.Abs(w.Hi-edge) > 1e-3*edge {
+		t.Errorf("tank window %v ends at %q, want 1:%.4g at the tank pressure min", w, w.HiLimit, edge)
 	}
 }
