@@ -3,7 +3,6 @@ package sweep
 import (
 	"fmt"
 	"math"
-	"slices"
 	"strings"
 
 	"scaleplan/feasibility"
@@ -39,29 +38,6 @@ func gLevelTie(item string) (tie feasibility.LengthTie, ok bool, err error) {
 		return tie, true, fmt.Errorf("%q: g_level=kL^0 is a g-level of 1; leave the g-level to the facility instead", item)
 	}
 	return feasibility.LengthTie{Quantity: "gravity", Exp: p.Neg()}, true, nil
-}
-
-// preferFree lists the quantities a study sweeps (the second axis) or
-// fixes, then those the strategy unties, so that the solver names them as
-// the free choices when the retained laws leave a direction open: a
-// distorted model gets its vertical scale (thickness), not the velocity,
-// as its free choice.
-func (p *Plan) preferFree(fix map[string]float64, untie []string) []string {
-	var out []string
-	if _, ok := feasibility.QuantityNamed(p.Settings.Axis); ok {
-		out = append(out, p.Settings.Axis)
-	}
-	for _, q := range feasibility.QuantityNames() {
-		if _, ok := fix[q]; ok && q != p.Settings.Axis {
-			out = append(out, q)
-		}
-	}
-	for _, q := range untie {
-		if !slices.Contains(out, q) {
-			out = append(out, q)
-		}
-	}
-	return out
 }
 
 // tiedGLevel resolves the name g_level: when the strategy ties the g-level
