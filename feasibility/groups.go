@@ -39,6 +39,9 @@ type VarExp struct {
 //	                   "Cauchy number^1/2"        (V·√(ρ/E))
 //
 // Powers are printed like every exponent of the package (2, -2, 1/2, -3/2).
+// One exception to "one non-repeating variable per group": a lone slope
+// (a dimensionless tan α) is combined with a wave steepness group into the
+// Iribarren number.
 // When the dimensions and the variable names leave two classic groups
 // possible, both are given, each with its own power, joined by " or "
 // ("Euler number or inverse Cauchy number"). A ratio of two variables of the
@@ -212,7 +215,181 @@ func PiGroups(vars []Variable, repeat []string) (PiResult, error) {
 		g.Name = recogniseGroup(g, index, dims)
 		res.Groups = append(res.Groups, g)
 	}
+	combineIribarren(res.Groups, index, dims)
+	combineBuoyancy(res.Groups, index, dims)
 	return res, nil
+}
+
+// convectionName names the groups of free convection (Incropera & DeWitt,
+// Fundamentals of Heat and Mass Transfer, ch. 9; from memory): the Grashof
+// number g·β·ΔT·L³/ν² and the Rayleigh number g·β·ΔT·L³/(ν·α), α a thermal
+// diffusivity, each up to a power. ok is false when the group does not
+// have their dimensions; a group of that shape built on α alone
+// (g·β·ΔT·L³/α² = Ra/Pr) is left unnamed.
+func convectionName(g PiGroup, dimOf func(VarExp) Dimension) (string, bool) {
+	var k Rat
+	sum := map[Dimension]Rat{}
+	var kin []VarExp
+	for _, e := range g.Exponents {
+		d := dimOf(e)
+		sum[d] = sum[d].Add(e.Exp)
+		if d == pdKinematic {
+			kin = append(kin, e)
+		}
+	}
+	k = sum[pdAccel]
+	if k.IsZero() || len(sum) != 5 || sum[pdExpansion].Cmp(k) != 0 || sum[pdTemperature].Cmp(k) != 0 ||
+		sum[pdLength].Cmp(k.Mul(Int(3))) != 0 || sum[pdKinematic].Cmp(k.Mul(Int(-2))) != 0 {
+		return "", false
+	}
+	var alpha, nu []VarExp
+	for _, e := range kin {
+		if matchHints(e.Name, diffusionHints) {
+			alpha = append(alpha, e)
+		} else {
+			nu = append(nu, e)
+		}
+	}
+	switch {
+	case len(alpha) == 0:
+		return powName("Grashof number", k), true
+	case len(alpha) == 1 && len(nu) == 1 && alpha[0].Exp.Cmp(k.Neg()) == 0 && nu[0].Exp.Cmp(k.Neg()) == 0:
+		return powName("Rayleigh number", k), true
+	}
+	return "", true
+}
+
+// combineBuoyancy multiplies a Galileo-type group g·L³/ν² (or g·L³/α²) by
+// the group β·ΔT of a thermal expansion and a temperature difference when
+// both are in the basis, giving the Grashof number (or the Rayleigh number
+// with a thermal diffusivity), the groups of free convection.
+func combineBuoyancy(groups []PiGroup, index map[string]int, dims []Dimension) {
+	var bt []VarExp // the β·ΔT group
+	for _, g := range groups {
+		if len(g.Exponents) != 2 {
+			continue
+		}
+		d0, d1 := dims[index[g.Exponents[0].Name]], dims[index[g.Exponents[1].Name]]
+		if (d0 == pdExpansion && d1 == pdTemperature) || (d0 == pdTemperature && d1 == pdExpansion) {
+			bt = g.Exponents
+			break
+		}
+	}
+	if bt == nil {
+		return
+	}
+	k := bt[0].Exp // β·ΔT raised to k
+	for i, g := range groups {
+		var m Rat // exponent of the acceleration
+		for _, e := range g.Exponents {
+			if dims[index[e.Name]] == pdAccel {
+				m = e.Exp
+			}
+		}
+		if m.IsZero() {
+			continue
+		}
+		p := m.Div(k)
+		out := PiGroup{Dim: g.Dim}
+		for _, e := range bt {
+			out.Exponents = append(out.Exponents, VarExp{e.Name, e.Exp.Mul(p)})
+		}
+		out.Exponents = append(out.Exponents, g.Exponents...)
+		if n := recogniseGroup(out, index, dims); strings.Contains(n, "Grashof") || strings.Contains(n, "Rayleigh") {
+			out.Name = n
+			groups[i] = out
+		}
+	}
+	// With a Prandtl group ν/α in the basis as well, Gr·Pr = Ra is the
+	// group free convection is characterised by.
+	for i, g := range groups {
+		if !strings.HasPrefix(g.Name, "Grashof number") {
+			continue
+		}
+		for _, pr := range groups {
+			if !strings.Contains(pr.Name, "Prandtl number") || len(pr.Exponents) != 2 {
+				continue
+			}
+			var prPow Rat // pr is Pr^prPow; the α exponent is −prPow
+			for _, e := range pr.Exponents {
+				if matchHints(e.Name, diffusionHints) {
+					prPow = e.Exp.Neg()
+				}
+			}
+			if prPow.IsZero() {
+				continue
+			}
+			var k Rat // g is Gr^k: the acceleration exponent
+			for _, e := range g.Exponents {
+				if dims[index[e.Name]] == pdAccel {
+					k = e.Exp
+				}
+			}
+			p := k.Div(prPow)
+			out := PiGroup{Dim: g.Dim, Exponents: append([]VarExp(nil), g.Exponents...)}
+			for _, e := range pr.Exponents {
+				merged := false
+				for j := range out.Exponents {
+					if out.Exponents[j].Name == e.Name {
+						out.Exponents[j].Exp = out.Exponents[j].Exp.Add(e.Exp.Mul(p))
+						merged = true
+					}
+				}
+				if !merged {
+					out.Exponents = append(out.Exponents, VarExp{e.Name, e.Exp.Mul(p)})
+				}
+			}
+			if n := recogniseGroup(out, index, dims); strings.HasPrefix(n, "Rayleigh number") {
+				out.Name = n
+				groups[i] = out
+			}
+			break
+		}
+	}
+}
+
+// combineIribarren replaces the group of a lone slope (a dimensionless
+// variable named tan_a, slope, …) by the Iribarren number when another
+// group is a wave steepness: slope · steepness^(-1/2k) for a steepness
+// raised to k. The basis stays a basis (one group times a power of
+// another), and it is the group coastal engineers use.
+func combineIribarren(groups []PiGroup, index map[string]int, dims []Dimension) {
+	for i, g := range groups {
+		if len(g.Exponents) != 1 || !dims[index[g.Exponents[0].Name]].IsDimensionless() || !matchHints(g.Exponents[0].Name, slopeHints) {
+			continue
+		}
+		for _, st := range groups {
+			k, ok := steepnessPower(st.Name)
+			if !ok {
+				continue
+			}
+			p := R(-1, 2).Div(k)
+			out := PiGroup{Exponents: []VarExp{g.Exponents[0]}, Dim: g.Dim}
+			for _, e := range st.Exponents {
+				out.Exponents = append(out.Exponents, VarExp{e.Name, e.Exp.Mul(p)})
+			}
+			out.Name = recogniseGroup(out, index, dims)
+			if out.Name != "" {
+				groups[i] = out
+			}
+			break
+		}
+	}
+}
+
+// steepnessPower returns k of a group named "wave steepness" raised to k.
+func steepnessPower(name string) (Rat, bool) {
+	switch {
+	case name == "wave steepness":
+		return Int(1), true
+	case name == "inverse wave steepness":
+		return Int(-1), true
+	}
+	if r, ok := strings.CutPrefix(name, "wave steepness^"); ok {
+		k, err := ParseRat(r)
+		return k, err == nil && !k.IsZero()
+	}
+	return Rat{}, false
 }
 
 // canonDim returns d with every exponent in canonical form, so that equal
@@ -308,6 +485,8 @@ var (
 	pdConduct     = Dim(1, 1, -3, -1) // thermal conductivity W/(m·K)
 	pdHeatCoef    = Dim(1, 0, -3, -1) // heat transfer coefficient W/(m²·K)
 	pdSpecHeat    = Dim(0, 2, -2, -1) // specific heat J/(kg·K)
+	pdExpansion   = Dim(0, 0, 0, -1)  // thermal expansion coefficient 1/K
+	pdNone        = Dim(0, 0, 0, 0)   // a dimensionless variable (a slope)
 )
 
 // repeatClass orders candidates for automatic repeating variables.
@@ -505,6 +684,10 @@ type classicGroup struct {
 	hint    *nameHints
 	// hintOnly: a specialised name, given only when the hint matches.
 	hintOnly bool
+	// notHint: the group is not this one when a variable of dimension
+	// hintDim has a name that fits notHint (g·L³/α² with a thermal
+	// diffusivity α is no Galileo number).
+	notHint *nameHints
 }
 
 func piTerm(d Dimension, num, den int64) sigTerm { return sigTerm{d, R(num, den)} }
@@ -523,7 +706,18 @@ var (
 	thrustHints     = &nameHints{words: []string{"t", "th"}, contains: []string{"thrust"}}
 	diffusionHints  = &nameHints{words: []string{"α", "κ", "alpha", "kappa"}, contains: []string{"diffusiv"}}
 	roughnessHints  = &nameHints{words: []string{"ε", "eps", "epsilon", "e", "ks"}, contains: []string{"rough"}}
+	// Wave height H (upper case; h is a water depth), wavelength λ and a
+	// beach or structure slope tan α.
+	heightHints     = &nameHints{words: []string{"hs", "hm0", "hrms", "hmax", "hw", "hwave", "hi"}, contains: []string{"height"}}
+	wavelengthHints = &nameHints{words: []string{"λ", "lambda", "lw", "l0", "lo", "wl"}, contains: []string{"wavelength", "wave_length"}}
+	slopeHints      = &nameHints{words: []string{"tana", "tanα", "tan_alpha", "tanalpha", "m", "s", "slope"}, contains: []string{"slope", "tan"}}
 )
+
+// isWaveHeight reports whether a length variable is a wave height: the
+// name H (upper case) or one that fits heightHints.
+func isWaveHeight(name string) bool {
+	return name == "H" || strings.HasPrefix(name, "H_") || matchHints(name, heightHints)
+}
 
 var classicGroups = []classicGroup{
 	{name: "Reynolds number", terms: []sigTerm{piTerm(pdDensity, 1, 1), piTerm(pdVelocity, 1, 1), piTerm(pdLength, 1, 1), piTerm(pdViscosity, -1, 1)}},
@@ -560,7 +754,7 @@ var classicGroups = []classicGroup{
 	{name: "capillary number", terms: []sigTerm{piTerm(pdViscosity, 1, 1), piTerm(pdVelocity, 1, 1), piTerm(pdTension, -1, 1)}},
 	{name: "Bond number", terms: []sigTerm{piTerm(pdDensity, 1, 1), piTerm(pdAccel, 1, 1), piTerm(pdLength, 2, 1), piTerm(pdTension, -1, 1)}},
 	{name: "Ohnesorge number", terms: []sigTerm{piTerm(pdViscosity, 1, 1), piTerm(pdDensity, -1, 2), piTerm(pdTension, -1, 2), piTerm(pdLength, -1, 2)}},
-	{name: "Galileo number", terms: []sigTerm{piTerm(pdAccel, 1, 1), piTerm(pdLength, 3, 1), piTerm(pdKinematic, -2, 1)}},
+	{name: "Galileo number", terms: []sigTerm{piTerm(pdAccel, 1, 1), piTerm(pdLength, 3, 1), piTerm(pdKinematic, -2, 1)}, hintDim: pdKinematic, notHint: diffusionHints},
 	{name: "Galileo number", terms: []sigTerm{piTerm(pdAccel, 1, 1), piTerm(pdLength, 3, 1), piTerm(pdDensity, 2, 1), piTerm(pdViscosity, -2, 1)}},
 	{name: "Prandtl number", terms: []sigTerm{piTerm(pdViscosity, 1, 1), piTerm(pdSpecHeat, 1, 1), piTerm(pdConduct, -1, 1)}},
 	{name: "Nusselt number", terms: []sigTerm{piTerm(pdHeatCoef, 1, 1), piTerm(pdLength, 1, 1), piTerm(pdConduct, -1, 1)}},
@@ -632,6 +826,12 @@ func recogniseGroup(g PiGroup, index map[string]int, dims []Dimension) string {
 		return ""
 	}
 	dimOf := func(e VarExp) Dimension { return dims[index[e.Name]] }
+	if n := waveGroupName(g, dimOf); n != "" {
+		return n
+	}
+	if n, ok := convectionName(g, dimOf); ok {
+		return n
+	}
 
 	// Signature: exponents summed per dimension, zero sums dropped.
 	var sig []sigTerm
@@ -669,6 +869,17 @@ func recogniseGroup(g PiGroup, index map[string]int, dims []Dimension) string {
 	for _, c := range classicGroups {
 		k, ok := proportional(sig, c.terms)
 		if !ok {
+			continue
+		}
+		excluded := false
+		if c.notHint != nil {
+			for _, e := range g.Exponents {
+				if dimOf(e) == c.hintDim && matchHints(e.Name, c.notHint) {
+					excluded = true
+				}
+			}
+		}
+		if excluded {
 			continue
 		}
 		hinted := false
@@ -770,6 +981,12 @@ func ratioName(g PiGroup, dimOf func(VarExp) Dimension) string {
 		if e, ok := hinted(soundHints); ok {
 			return powName("Mach number", e.Neg())
 		}
+	case pdKinematic:
+		// Prandtl number ν/α: the power is minus the exponent of the
+		// thermal diffusivity.
+		if e, ok := hinted(diffusionHints); ok {
+			return powName("Prandtl number", e.Neg())
+		}
 	case pdLength:
 		// Relative roughness ε/D: the power is the exponent of the roughness.
 		if e, ok := hinted(roughnessHints); ok {
@@ -780,4 +997,63 @@ func ratioName(g PiGroup, dimOf func(VarExp) Dimension) string {
 		return noun + " ratio"
 	}
 	return ""
+}
+
+// waveGroupName names the groups of coastal models that the dimensions
+// alone cannot tell from a length ratio, by the names of their variables
+// (Hughes 1993, Physical Models and Laboratory Techniques in Coastal
+// Engineering, ch. 2; from memory):
+//
+//	wave steepness      H/λ, or H/(g·T²) (deep water, λ0 = gT²/2π)
+//	Iribarren number    tan α/√(H/λ), or tan α·T·√(g/H)
+//
+// each up to a power. It returns "" when the group is neither.
+func waveGroupName(g PiGroup, dimOf func(VarExp) Dimension) string {
+	var slope, height, wavelength, accel, period Rat
+	var nSlope, nHeight, nWave, nAccel, nPeriod int
+	for _, e := range g.Exponents {
+		d := dimOf(e)
+		switch {
+		case d == pdNone && matchHints(e.Name, slopeHints):
+			slope, nSlope = e.Exp, nSlope+1
+		case d == pdLength && isWaveHeight(e.Name):
+			height, nHeight = e.Exp, nHeight+1
+		case d == pdLength && matchHints(e.Name, wavelengthHints):
+			wavelength, nWave = e.Exp, nWave+1
+		case d == pdAccel:
+			accel, nAccel = e.Exp, nAccel+1
+		case d == pdTime:
+			period, nPeriod = e.Exp, nPeriod+1
+		default:
+			return ""
+		}
+	}
+	if nHeight != 1 || nSlope > 1 || nWave > 1 || nAccel > 1 || nPeriod > 1 {
+		return ""
+	}
+	// steepness^k: H^k·λ^-k, or H^k·g^-k·T^-2k.
+	k := height
+	if nSlope == 1 {
+		// Iribarren^j = tanα^j · steepness^(-j/2): k = −j/2.
+		k = slope.Mul(R(-1, 2))
+		if height.Cmp(k) != 0 {
+			return ""
+		}
+	}
+	switch {
+	case nWave == 1 && nAccel == 0 && nPeriod == 0:
+		if wavelength.Cmp(k.Neg()) != 0 {
+			return ""
+		}
+	case nWave == 0 && nAccel == 1 && nPeriod == 1:
+		if accel.Cmp(k.Neg()) != 0 || period.Cmp(k.Mul(Int(-2))) != 0 {
+			return ""
+		}
+	default:
+		return ""
+	}
+	if nSlope == 1 {
+		return powName("Iribarren number", slope)
+	}
+	return powName("wave steepness", k)
 }

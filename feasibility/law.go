@@ -59,7 +59,11 @@ type Law struct {
 func prod(pairs ...any) Product {
 	p := make(Product, 0, len(pairs)/2)
 	for i := 0; i < len(pairs); i += 2 {
-		p = append(p, Term{pairs[i].(string), Int(int64(pairs[i+1].(int)))})
+		e, ok := pairs[i+1].(Rat)
+		if !ok {
+			e = Int(int64(pairs[i+1].(int)))
+		}
+		p = append(p, Term{pairs[i].(string), e})
 	}
 	return p
 }
@@ -78,6 +82,24 @@ var laws = []Law{
 	{"flexure", prod("strength", 1, "thickness", 2), "plate-flexure number", Int(-1), "flexural failure of a layer"},
 	{"strength", prod("strength", 1, "length", 2), "strength number", Int(-1), "material failure"},
 	{"spring", prod("stiffness", 1, "length", 1), "reduced stiffness", Int(-1), "springs or restraints"},
+	// The laws of distorted, diffusive and cavitating models (spec §3.6).
+	// hydrostatic: the pressure head ρ·g·h over the vertical scale h
+	// (thickness) acting over length²; against inertia it forms
+	// V²/(g·h), the square of the depth Froude number.
+	{"hydrostatic", prod("density", 1, "gravity", 1, "thickness", 1, "length", 2), "depth Froude number", R(1, 2), "pressure head over the vertical scale"},
+	// bed_friction: Manning's friction slope S_f = n²V²/h^4/3 must scale as
+	// the geometric slope h/L. Written as a force that scales like inertia
+	// exactly when it does: ρV²L² · g·n²·L/h^4/3 (the bed shear force
+	// ρ·g·n²V²·h^-1/3·L² over the slope h/L).
+	{"bed_friction", prod("density", 1, "gravity", 1, "roughness", 2, "velocity", 2, "length", 3, "thickness", R(-4, 3)), "roughness number", Int(1), "bed friction (Manning)"},
+	// consolidation: the time factor T_v = c_v·t/L² with t = L/V, i.e. the
+	// force ρ·c_v·V·L; its group against inertia is T_v itself.
+	{"consolidation", prod("density", 1, "consolidation_coefficient", 1, "velocity", 1, "length", 1), "time factor", Int(-1), "consolidation (pore-pressure diffusion)"},
+	// cavitation: the margin of the ambient pressure above the vapour
+	// pressure, (p − p_v)·L², against inertia: the cavitation number σ.
+	// Here pressure stands for that margin; the ambient pressure a model
+	// needs is p_v,m + (p_p − p_v,p)/k_pressure (see CavitationPressure).
+	{"cavitation", prod("pressure", 1, "length", 2), "cavitation number", Int(-1), "cavitation (ambient pressure above vapour pressure)"},
 }
 
 var lawIndex = func() map[string]int {
@@ -126,6 +148,14 @@ var definitions = []definition{
 	{"stiffness", prod("force", 1, "length", -1)},
 	{"kinematic_viscosity", prod("viscosity", 1, "density", -1)},
 	{"flexural_rigidity", prod("modulus", 1, "area_moment", 1)},
+}
+
+// lateDefinitions define quantities that no law names. They are solved
+// after every law and pivot on the quantity they define, so adding them
+// changes no other quantity's law and never makes another quantity a
+// free choice.
+var lateDefinitions = []definition{
+	{"discharge", prod("velocity", 1, "length", 1, "thickness", 1)},
 }
 
 // ties are the geometric relations that hold unless a strategy unties the

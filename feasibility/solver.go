@@ -86,6 +86,9 @@ type Solution struct {
 	Free       []string
 	Required   []string // properties solved for (tuned ones included)
 	Relaxed    []Mismatch
+	// Warnings are things about the request a user should hear, said in
+	// every output (an untied quantity no retained law uses).
+	Warnings []string
 
 	exp *mat.Dense // quantities × parameters, float exponents
 }
@@ -96,10 +99,14 @@ type row struct {
 	c   []*big.Rat
 	tag string // what the equation expresses, for naming conditions
 	law string
+	// pivot, when ≥ 0, is the quantity column the row pivots on if it is
+	// still non-zero after reduction (a late definition pivots on the
+	// quantity it defines).
+	pivot int
 }
 
 func newRow(n int, tag, law string) row {
-	r := row{c: make([]*big.Rat, n), tag: tag, law: law}
+	r := row{c: make([]*big.Rat, n), tag: tag, law: law, pivot: -1}
 	for i := range r.c {
 		r.c[i] = new(big.Rat)
 	}
@@ -143,6 +150,12 @@ func Solve(s Strategy) (*Solution, error) {
 		r.c[nq+j].SetInt64(-1)
 		rows = append(rows, r)
 	}
+	for _, t := range s.Tied {
+		r := newRow(width, fmt.Sprintf("the tie k_%s = kL^%s", t.Quantity, t.Exp), "")
+		r.c[quantityIndex[t.Quantity]].SetInt64(1)
+		r.c[nq].Sub(r.c[nq], t.Exp.big())
+		rows = append(rows, r)
+	}
 	for _, d := range definitions {
 		r := newRow(width, "the definition "+d.Quantity+" = "+d.Of.String(), "")
 		r.c[quantityIndex[d.Quantity]].SetInt64(1)
@@ -173,9 +186,20 @@ func Solve(s Strategy) (*Solution, error) {
 		r.addProduct(l.Force, -1)
 		rows = append(rows, r)
 	}
+	for _, d := range lateDefinitions {
+		r := newRow(width, "the definition "+d.Quantity+" = "+d.Of.String(), "")
+		r.pivot = quantityIndex[d.Quantity]
+		r.c[r.pivot].SetInt64(1)
+		r.addProduct(d.Of, -1)
+		rows = append(rows, r)
+	}
 
-	ech := eliminate(rows, nq)
-	sol := &Solution{Strategy: s, Reference: reference(s)}
+	avoid := make([]bool, nq)
+	for _, q := range s.PreferFree {
+		avoid[quantityIndex[q]] = true
+	}
+	ech := eliminate(rows, nq, avoid)
+	sol := &Solution{Strategy: s, Reference: reference(s), Warnings: untieWarnings(s)}
 	sol.classify(ech, params, nq)
 	if err := sol.checkTuned(); err != nil {
 		return nil, err
@@ -209,7 +233,10 @@ type echelon struct {
 // late in the column order are the ones left free); a row left with
 // parameters only is a compatibility condition and keeps the tag of the
 // equation that produced it; a row reduced to nothing is redundant.
-func eliminate(rows []row, nq int) echelon {
+//
+// avoid marks quantity columns to pivot on only when no other quantity
+// column is left in the row, so that they stay free if anything does.
+func eliminate(rows []row, nq int, avoid []bool) echelon {
 	var e echelon
 	tmp := new(big.Rat)
 	reduce := func(r row, by []row, cols []int) {
@@ -242,7 +269,19 @@ func eliminate(rows []row, nq int) echelon {
 	}
 	for _, r := range rows {
 		reduce(r, e.pivots, e.pivotCol)
-		if col := firstNonZero(r, 0, nq); col >= 0 {
+		col := firstNonZero(r, 0, nq)
+		if col >= 0 && avoid[col] {
+			for k := col + 1; k < nq; k++ {
+				if !avoid[k] && r.c[k].Sign() != 0 {
+					col = k
+					break
+				}
+			}
+		}
+		if r.pivot >= 0 && r.c[r.pivot].Sign() != 0 {
+			col = r.pivot
+		}
+		if col >= 0 {
 			normalise(r, col)
 			e.pivots = append(e.pivots, r)
 			e.pivotCol = append(e.pivotCol, col)
@@ -384,7 +423,7 @@ func (sol *Solution) findRequired() {
 	}
 	req := map[string]bool{}
 	for i, l := range sol.Laws {
-		if l.Status != Determined || l.Quantity == "force" || l.Quantity == "velocity" {
+		if l.Status != Determined || l.Quantity == "force" || l.Quantity == "velocity" || sol.Strategy.isTied(l.Quantity) {
 			continue
 		}
 		if quantities[i].Kind == Property || (quantities[i].Kind == Response && inLaw[l.Quantity]) ||
@@ -421,6 +460,15 @@ func (sol *Solution) findRequired() {
 			sol.Required = append(sol.Required, l.Quantity)
 		}
 	}
+}
+
+func (s Strategy) isTied(q string) bool {
+	for _, t := range s.Tied {
+		if t.Quantity == q {
+			return true
+		}
+	}
+	return false
 }
 
 // mismatches forms, for each relaxed law, the scale factor of its group

@@ -317,7 +317,7 @@ func TestSolveErrors(t *testing.T) {
 		s    Strategy
 		want string
 	}{
-		{Strategy{}, "no law retained: retain at least one (known: inertia, gravity, viscosity, surface_tension, elasticity, compressibility, pressure, cohesion, friction, bending, flexure, strength, spring)"},
+		{Strategy{}, "no law retained: retain at least one (known: inertia, gravity, viscosity, surface_tension, elasticity, compressibility, pressure, cohesion, friction, bending, flexure, strength, spring, hydrostatic, bed_friction, consolidation, cavitation)"},
 		{Strategy{Retain: []string{"inertia", "gravty"}}, `unknown law "gravty" (did you mean gravity?)`},
 		{Strategy{Retain: []string{"inertia"}, Given: []string{"densty"}}, `unknown quantity "densty" (did you mean density?)`},
 		{Strategy{Retain: []string{"inertia", "gravity"}, Relax: []string{"gravity"}}, `law "gravity" is both retained and relaxed: choose one`},

@@ -20,6 +20,22 @@ type Strategy struct {
 	// Tuned quantities are solved for like any other and then checked
 	// against the range a device or medium can reach.
 	Tuned []string
+	// Tied quantities have a scale factor that is a power of the length
+	// scale, set by the test rather than by a material: a centrifuge run
+	// at N = kL times gravity has k_gravity = kL^-1.
+	Tied []LengthTie
+	// PreferFree names quantities to leave as the free choices where the
+	// retained laws leave a direction undetermined (a study sweeping the
+	// vertical scale of a distorted model prefers thickness to velocity).
+	// It changes which quantity is named free, never the solution space.
+	PreferFree []string
+}
+
+// LengthTie ties a quantity's scale factor to the length scale:
+// k_Quantity = kL^Exp.
+type LengthTie struct {
+	Quantity string
+	Exp      Rat
 }
 
 // validate checks every name and the consistency of the request.
@@ -75,8 +91,25 @@ func (s Strategy) validate() error {
 	if err := check("given", s.Given); err != nil {
 		return err
 	}
+	for _, n := range s.PreferFree {
+		if _, err := LookupQuantity(n); err != nil {
+			return err
+		}
+	}
 	if err := check("tuned", s.Tuned); err != nil {
 		return err
+	}
+	tied := make([]string, len(s.Tied))
+	for i, t := range s.Tied {
+		tied[i] = t.Quantity
+	}
+	if err := check("tied to the length scale", tied); err != nil {
+		return err
+	}
+	for _, n := range tied {
+		if n == "length" {
+			return fmt.Errorf("the length scale cannot be tied to itself")
+		}
 	}
 	return nil
 }

@@ -40,10 +40,13 @@ func Example() {
 	//   kinematic_viscosity  1.0034e-06
 	//   sound_speed          1482.4
 	//   surface_tension      0.072736
+	//   vapour_pressure      2339.2
 	//   viscosity            0.0010016
 	// seawater at 15 °C, 35 g/kg:
 	//   density              1026
 	//   kinematic_viscosity  1.1889e-06
+	//   sound_speed          1506.7
 	//   surface_tension      0.074213
+	//   vapour_pressure      1671
 	//   viscosity            0.0012199
 }

@@ -21,8 +21,8 @@ func TestSpecEntries(t *testing.T) {
 	l := defaultLibrary(t)
 	solidProps := []string{"density", "modulus", "poisson", "strength"}
 	want := map[string][]string{
-		"water":          {"density", "kinematic_viscosity", "sound_speed", "surface_tension", "viscosity"},
-		"seawater":       {"density", "kinematic_viscosity", "surface_tension", "viscosity"},
+		"water":          {"density", "kinematic_viscosity", "sound_speed", "surface_tension", "vapour_pressure", "viscosity"},
+		"seawater":       {"density", "kinematic_viscosity", "sound_speed", "surface_tension", "vapour_pressure", "viscosity"},
 		"air":            {"density", "kinematic_viscosity", "sound_speed", "viscosity"},
 		"nitrogen":       {"density", "kinematic_viscosity", "sound_speed", "viscosity"},
 		"helium":         {"density", "kinematic_viscosity", "sound_speed", "viscosity"},
@@ -30,10 +30,10 @@ func TestSpecEntries(t *testing.T) {
 		"water_glycerol": {"density", "kinematic_viscosity", "viscosity"},
 		"glycerol":       {"density", "kinematic_viscosity", "viscosity"},
 		"brine":          {"density", "kinematic_viscosity", "viscosity"},
-		"dry_dense_sand": {"cohesion", "density", "friction"},
-		"dry_loose_sand": {"cohesion", "density", "friction"},
-		"soft_clay":      {"cohesion", "density", "friction"},
-		"lab_kaolin":     {"cohesion", "density", "friction"},
+		"dry_dense_sand": {"cohesion", "density", "friction", "modulus", "permeability"},
+		"dry_loose_sand": {"cohesion", "density", "friction", "modulus", "permeability"},
+		"soft_clay":      {"cohesion", "consolidation_coefficient", "density", "friction", "modulus", "permeability"},
+		"lab_kaolin":     {"cohesion", "consolidation_coefficient", "density", "friction", "modulus", "permeability"},
 		"sea_ice":        solidProps,
 		"freshwater_ice": solidProps,
 		"model_ice":      solidProps,

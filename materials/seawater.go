@@ -48,6 +48,8 @@ func seawaterEntry() Entry {
 				{Quantity: "density", Value: seawaterDensity(t, S), Source: srcSharqawyRho},
 				{Quantity: "viscosity", Value: seawaterViscosity(t, S), Source: srcSharqawyMu},
 				{Quantity: "surface_tension", Value: seawaterSurfaceTension(t, S), Source: srcSharqawySig},
+				{Quantity: "sound_speed", Value: seawaterSoundSpeed(t, S, 0), Source: srcMackenzieC},
+				{Quantity: "vapour_pressure", Value: seawaterVapourPressure(t, S), Source: srcSharqawyPv},
 			}
 		},
 	}

@@ -103,6 +103,7 @@ func waterEntry() Entry {
 				{Quantity: "viscosity", Value: waterViscosity(c.Temperature, rho), Source: srcIAPWSVis},
 				{Quantity: "surface_tension", Value: waterSurfaceTension(c.Temperature), Source: srcIAPWSSig},
 				{Quantity: "sound_speed", Value: waterSoundSpeed(t), Source: srcMarczak},
+				{Quantity: "vapour_pressure", Value: waterVapourPressure(c.Temperature), Source: srcIF97Sat},
 			}
 		},
 	}

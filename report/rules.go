@@ -35,6 +35,7 @@ type RulesReport struct {
 	Required   []string                     `json:"required"`
 	Unset      []string                     `json:"unset"`
 	Relaxed    []RelaxedGroup               `json:"relaxed"`
+	Warnings   []string                     `json:"warnings,omitempty"`
 
 	sol    *feasibility.Solution
 	length float64
@@ -60,7 +61,7 @@ func NewRulesReport(sol *feasibility.Solution, given map[string]float64, length 
 		Conditions: []string{}, Explained: []string{}, Free: nonNil(sol.Free),
 		Exponents: map[string]map[string]string{}, Laws: map[string]string{},
 		Required: nonNil(sol.Required), Unset: []string{}, Relaxed: []RelaxedGroup{},
-		Consistent: true, sol: sol, length: length,
+		Consistent: true, sol: sol, length: length, Warnings: sol.Warnings,
 	}
 	v := feasibility.Values{}
 	for q, k := range given {
@@ -231,6 +232,9 @@ func (r *RulesReport) WriteText(w io.Writer) error {
 			fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", g.Law, g.Group, law, val)
 		}
 		tw.Flush()
+	}
+	for _, warn := range r.Warnings {
+		fmt.Fprintf(b, "\nWarning: %s.\n", warn)
 	}
 	_, err := io.WriteString(w, b.String())
 	return err

@@ -214,6 +214,12 @@ func wbCombos(sr *sweep.StrategyResult) []*sweep.ComboResult {
 //     substitute only 1:12.2 (its density must match).
 //   - pontoon-bridge: both relax viscosity beyond the threshold; segmented
 //     1:13.3 against one-piece 1:27.3.
+//   - tidal-estuary: undistorted none (floor against minimum depth);
+//     distorted 1:150.
+//   - storm-caisson: same soil none (time factor only at 1:1); viscous pore
+//     fluid 1:36 relaxes nothing; dynamic loading only 1:36 relaxes
+//     consolidation (time factor off by kL = 36, beyond the threshold), so
+//     the viscous pore fluid ranks first at the same model size.
 var wbRecommended = map[string]string{
 	"harbour-tug":    "Froude scaling",
 	"sloped-pier":    "distorted thickness",
@@ -221,4 +227,6 @@ var wbRecommended = map[string]string{
 	"iced-conductor": "spring-mounted section",
 	"telecom-mast":   "added mass",
 	"pontoon-bridge": "segmented with backbone",
+	"tidal-estuary":  "distorted",
+	"storm-caisson":  "viscous pore fluid",
 }

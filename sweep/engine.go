@@ -405,6 +405,7 @@ type sweepOut struct {
 func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 	p := x.plan
 	var skipped []string
+	notes = append(notes, x.cas.Solution.Warnings...)
 	defer func() {
 		if len(skipped) > 0 {
 			notes = append(notes, "default limits not applied, their names are not in the study: "+strings.Join(skipped, ", "))

@@ -197,6 +197,9 @@ func (x *combo) form(name string) (linForm, error) {
 		}
 		return linForm{C: math.Log(v) - k.C, E: -k.E}, nil
 	}
+	if f, ok := x.tiedGLevel(name); ok {
+		return f, nil
+	}
 	if v, ok := x.caps[name]; ok {
 		return linForm{C: math.Log(v)}, nil
 	}

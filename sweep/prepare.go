@@ -178,7 +178,15 @@ func (p *Plan) prepareCustom(ps *Problems) {
 			byEntry[name] = a
 			order = append(order, name)
 		}
-		a.props = append(a.props, materials.CustomProperty{Quantity: strings.TrimSpace(r.Property), Value: strings.TrimSpace(r.Value), Unit: strings.TrimSpace(r.Unit), Source: strings.TrimSpace(r.Source)})
+		cp := materials.CustomProperty{Quantity: strings.TrimSpace(r.Property), Value: strings.TrimSpace(r.Value), Unit: strings.TrimSpace(r.Unit), Source: strings.TrimSpace(r.Source)}
+		// A value written "LO to HI" is a tunable range (a model bed
+		// roughened as needed, a pore fluid mixed to a viscosity); its
+		// nominal value is the range's geometric middle.
+		if lo, hi, ok := strings.Cut(cp.Value, " to "); ok {
+			cp.Min, cp.Max = strings.TrimSpace(lo), strings.TrimSpace(hi)
+			cp.Value = rangeMiddle(cp.Min, cp.Max)
+		}
+		a.props = append(a.props, cp)
 	}
 	for _, name := range order {
 		a := byEntry[name]
@@ -476,6 +484,14 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			Untie: qCol("untie", r.Untie), Given: qCol("given", r.Given), Tuned: qCol("tuned", r.Tuned),
 		}
 		for _, item := range splitNames(r.Fix) {
+			if tie, isTie, err := gLevelTie(item); isTie {
+				if err != nil {
+					ps.Add(At("Strategies", r.Row, "fix"), "%v", err)
+					ok = false
+				}
+				strat.Tied = append(strat.Tied, tie)
+				continue
+			}
 			q, val, found := strings.Cut(item, "=")
 			k, err := strconv.ParseFloat(val, 64)
 			if !found || err != nil || !(k > 0) || math.IsInf(k, 0) {
@@ -490,6 +506,7 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			}
 			p.addFix(c, q, k, ps)
 		}
+		strat.PreferFree = p.preferFree(c.Fix, strat.Untie)
 		c.Correction = strings.TrimSpace(r.Correction)
 		if c.Correction != "" && !slices.Contains(Corrections, c.Correction) {
 			ps.Add(At("Strategies", r.Row, "correction"), "unknown correction %q%s", c.Correction, feasibility.Suggest(c.Correction, Corrections))
@@ -764,6 +781,9 @@ func (p *Plan) dimResolver(f *Facility) func(string) (feasibility.Dimension, err
 		if c, ok := constants[name]; ok {
 			return c.dim, nil
 		}
+		if name == "g_level" { // every facility's g-level, 1 unless stated or tied
+			return feasibility.Dimension{}, nil
+		}
 		return feasibility.Dimension{}, unknownName(name, func() []string { return p.names(f) })
 	}
 }
@@ -922,4 +942,16 @@ func (p *Plan) checkDim(ps *Problems, e *feasibility.Expr, targets []*Facility, 
 			return
 		}
 	}
+}
+
+// rangeMiddle is the geometric middle of a tunable range written as two
+// numbers with the same unit, as text; the bounds as given when either is
+// not a bare positive number (the range check then names the cell).
+func rangeMiddle(lo, hi string) string {
+	a, errA := strconv.ParseFloat(lo, 64)
+	b, errB := strconv.ParseFloat(hi, 64)
+	if errA != nil || errB != nil || !(a > 0) || !(b > 0) {
+		return lo
+	}
+	return strconv.FormatFloat(math.Sqrt(a*b), 'g', 6, 64)
 }

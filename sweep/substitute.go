@@ -186,6 +186,13 @@ next:
 		if x.cas.Technique == "simulated" && deviceSupplied[q] != "" && !(q == "density" && x.unballasted(sup)) {
 			continue
 		}
+		if q == "pressure" && slices.Contains(sol.Strategy.Retain, "cavitation") {
+			// Under the cavitation law the required pressure is the
+			// ambient pressure at the body, which the tunnel or tank
+			// sets: its pressure range is a facility limit, not a
+			// property of the fluid.
+			continue
+		}
 		for _, ch := range out {
 			if ch.kind == "match" && sol.Linked(q, ch.q) {
 				continue next

@@ -155,6 +155,29 @@ A layer of ice of unchanged strength, with its thickness scaled apart:
 
 	$ scaleplan rules --retain inertia,gravity,flexure --given density=1,gravity=1,strength=1 --untie thickness --length 50
 
+A distorted river model, 1:500 in plan and 1:50 in depth (velocity follows
+the vertical scale; Manning's n is required):
+
+	$ scaleplan rules --retain inertia,hydrostatic,bed_friction --untie thickness --given density=1,gravity=1,thickness=50 --length 500 --json
+
+Retaining gravity instead leaves the velocity on the horizontal scale; the
+output warns that no retained law uses the untied thickness:
+
+	$ scaleplan rules --retain inertia,gravity --untie thickness --given density=1,gravity=1,thickness=50 --length 500
+
+Consolidation in a centrifuge at N = kL = 50 g with the prototype soil and
+pore water (inconsistent: the time factor needs c_v scaled by kL), and with
+the consolidation coefficient left to the model (a pore fluid 50 times more
+viscous):
+
+	$ scaleplan rules --retain inertia,gravity,consolidation --given density=1,gravity=1/50,consolidation_coefficient=1 --length 50 --json
+	$ scaleplan rules --retain inertia,gravity,consolidation --given density=1,gravity=1/50 --length 50 --json
+
+A propeller in a depressurised tank at 1:25 (the margin p − p_v of the
+ambient pressure scales as kL):
+
+	$ scaleplan rules --retain inertia,gravity,cavitation --given density=1,gravity=1 --length 25 --json
+
 # groups
 
 	scaleplan groups NAME=UNIT ... [--repeat NAMES] [--json]
@@ -177,6 +200,13 @@ Drag on a sphere:
 Pressure drop in a rough pipe, with the repeating variables chosen:
 
 	$ scaleplan groups dp=Pa rho=kg/m^3 V=m/s D=m mu=Pa*s L=m eps=m --repeat rho,V,D
+
+Waves breaking on a slope (a dimensionless tan_a is combined with the wave
+steepness into the Iribarren number), and free convection (β·ΔT joins
+g·L³/ν² into the Grashof number, and Gr·Pr gives the Rayleigh number):
+
+	$ scaleplan groups tan_a=1 H=m lambda=m
+	$ scaleplan groups beta=1/K g=m/s^2 dT=K L=m nu=m^2/s alpha=m^2/s --repeat dT,L,nu
 
 # version
 

@@ -56,6 +56,9 @@ func rulesCommand() *cli.Command {
 				Untie:  splitList(c.String("untie")),
 				Given:  order,
 			}
+			// An untied quantity left open is the natural free choice (the
+			// vertical scale of a distorted model).
+			strategy.PreferFree = strategy.Untie
 			sol, err := feasibility.Solve(strategy)
 			if err != nil {
 				return err
