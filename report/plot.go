@@ -18,7 +18,6 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgpdf"
 	"gonum.org/v1/plot/vg/vgsvg"
 
 	"scaleplan/sweep"
@@ -147,7 +146,7 @@ func renderPlot(format string, w, h vg.Length, date string, drawFn func(draw.Can
 	case PlotSVG:
 		c = vgsvg.New(w, h)
 	case PlotPDF:
-		c = vgpdf.New(w, h)
+		c = newPDFCanvas(w, h, pdfTime(date))
 	default:
 		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(plotDPI))}
 	}
