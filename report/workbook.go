@@ -32,6 +32,8 @@ type sheetWriter struct {
 	bold   int
 	name   string
 	cols   int
+	// formats maps a display format to its style (see sigCell).
+	formats map[string]int
 }
 
 func newSheet(f *excelize.File, name string, header []string, widths []float64, bold int) (*sheetWriter, error) {
@@ -39,6 +41,9 @@ func newSheet(f *excelize.File, name string, header []string, widths []float64, 
 		if _, err := f.NewSheet(name); err != nil {
 			return nil, err
 		}
+	}
+	if err := printSetup(f, name, len(header) > 0); err != nil {
+		return nil, err
 	}
 	sw, err := f.NewStreamWriter(name)
 	if err != nil {
@@ -74,6 +79,13 @@ func (s *sheetWriter) add(cells ...any) error {
 		if f, ok := c.(float64); ok && (math.IsNaN(f) || math.IsInf(f, 0)) {
 			cells[i] = ""
 		}
+		if x, ok := c.(sigNum); ok {
+			v, err := s.sigCell(x)
+			if err != nil {
+				return err
+			}
+			cells[i] = v
+		}
 	}
 	return s.sw.SetRow(cell, cells)
 }
@@ -88,6 +100,9 @@ func (s *sheetWriter) close(filter bool) error {
 			StyleName: "TableStyleLight1", ShowRowStripes: &off}); err != nil {
 			return err
 		}
+	}
+	if err := printPages(s.f, s.name, s.row); err != nil {
+		return err
 	}
 	return s.sw.Flush()
 }
@@ -185,6 +200,12 @@ func sortedZip(w io.Writer, b []byte) error {
 	for _, f := range files {
 		if f.Name == "[Content_Types].xml" {
 			if err := copySortedTypes(zw, f); err != nil {
+				return err
+			}
+			continue
+		}
+		if sheetPartRE.MatchString(f.Name) {
+			if err := copyFixedSheet(zw, f); err != nil {
 				return err
 			}
 			continue
@@ -297,16 +318,13 @@ func orDash(s string) string {
 	return s
 }
 
-// sig rounds to four significant figures for display cells.
+// sig is a number stored at full precision and shown to four significant
+// figures; NaN and infinities leave the cell empty.
 func sig(x float64) any {
 	if math.IsNaN(x) || math.IsInf(x, 0) {
 		return ""
 	}
-	if x == 0 {
-		return 0.0
-	}
-	d := math.Pow(10, 3-math.Floor(math.Log10(math.Abs(x))))
-	return math.Round(x*d) / d
+	return sigNum(x)
 }
 
 func money(x float64) any {

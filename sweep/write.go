@@ -287,6 +287,9 @@ func buildWorkbook(f *excelize.File, s *Study, lists Lists) error {
 	if err := writeLists(f, s, lists, bold); err != nil {
 		return err
 	}
+	if err := finishLayout(f); err != nil {
+		return err
+	}
 	f.SetActiveSheet(0)
 	return f.SetDocProps(&excelize.DocProperties{
 		Created:        docTime,
