@@ -122,7 +122,7 @@ func WritePlots(dir, base string, res *sweep.Result, format string) ([]string, e
 			}
 		}
 		for _, rs := range RequirementData(res, sr) {
-			kind := "require-" + FileName(rs.Capability+"-"+rs.Limit)
+			kind := requireKind(rs)
 			if err := write(kind, i, sr, plotWidth, requirementHeight, func(dc draw.Canvas) { drawRequirement(dc, res, rs) }); err != nil {
 				return files, err
 			}

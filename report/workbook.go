@@ -443,10 +443,7 @@ func mapSheetName(i int, name string) string {
 		return r
 	}, name)
 	prefix := fmt.Sprintf("Map %d ", i+1)
-	if r := []rune(clean); len(r) > 31-len(prefix) {
-		clean = string(r[:31-len(prefix)])
-	}
-	return prefix + clean
+	return prefix + shortName(clean, 31-len(prefix))
 }
 
 // writeMap writes the margin of every combination of a strategy at every

@@ -7,6 +7,7 @@ import (
 	"math"
 	"regexp"
 	"strconv"
+	"strings"
 
 	"github.com/xuri/excelize/v2"
 )
@@ -153,4 +154,21 @@ func copyFixedSheet(zw *zip.Writer, f *zip.File) error {
 	}
 	_, err = w.Write(fixDimension(b))
 	return err
+}
+
+// shortName shortens a name to at most n characters readably: cut after a
+// whole word where one ends in its second half, and marked with "…".
+func shortName(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	cut := r[:n-1]
+	for j := len(cut); j > n/2; j-- {
+		if cut[j-1] != ' ' && (j == len(r) || r[j] == ' ') {
+			cut = cut[:j]
+			break
+		}
+	}
+	return strings.TrimRight(string(cut), " -_,;") + "…"
 }

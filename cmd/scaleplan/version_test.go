@@ -11,6 +11,8 @@ import (
 	"strings"
 	"testing"
 	"time"
+
+	"scaleplan/report"
 )
 
 func TestVersionOf(t *testing.T) {
@@ -24,8 +26,8 @@ func TestVersionOf(t *testing.T) {
 		{debug.BuildInfo{Settings: []debug.BuildSetting{{Key: "vcs.revision", Value: "abc"}}}, "abc"},
 		{debug.BuildInfo{Main: debug.Module{Version: "(devel)"}}, "devel"},
 	} {
-		if got := versionOf(&tc.info); got != tc.want {
-			t.Errorf("versionOf(%+v) = %q, want %q", tc.info.Main, got, tc.want)
+		if got := report.VersionOf(&tc.info); got != tc.want {
+			t.Errorf("VersionOf(%+v) = %q, want %q", tc.info.Main, got, tc.want)
 		}
 	}
 }
@@ -63,7 +65,7 @@ func runBinary(t *testing.T, bin string, args ...string) string {
 
 // recordedVersion reads the version from a binary's build information
 // with `go version -m` (the go tool's own reader), by the rule of
-// buildVersion: the module version, else the revision, else devel.
+// report.BuildVersion: the module version, else the revision, else devel.
 func recordedVersion(t *testing.T, bin string) string {
 	t.Helper()
 	out, err := exec.Command("go", "version", "-m", bin).Output()
