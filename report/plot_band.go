@@ -149,7 +149,9 @@ func drawBand(dc draw.Canvas, res *sweep.Result, bc BandChart) {
 	var ticks plot.ConstantTicks
 	noData := false
 	for r, row := range bc.Rows {
-		label := clip(row.Label, 56)
+		// Row names take at most a third of the width, leaving the scale
+		// axis room for its labels.
+		label := fitText(textStyle(8.5, inkColor), row.Label, plotWidth/3)
 		if row.Best {
 			label += " [recommended]"
 		}
@@ -164,6 +166,14 @@ func drawBand(dc draw.Canvas, res *sweep.Result, bc BandChart) {
 	}
 	sort.Slice(ticks, func(i, j int) bool { return ticks[i].Value < ticks[j].Value })
 	p.Y.Tick.Marker = ticks
+	// The scale axis gets what the row names and the colour bar leave.
+	widest := vg.Length(0)
+	for _, tk := range ticks {
+		widest = max(widest, textStyle(8.5, inkColor).Width(tk.Label))
+	}
+	if d := math.Log10(bc.X[len(bc.X)-1] / bc.X[0]); d > 0 {
+		p.X.Tick.Marker = logTicks{format: scaleLabel, perDecade: (plotWidth - bandBarW - widest - 40) / vg.Length(d)}
+	}
 	p.Y.Tick.Label.Font.Size = 8.5
 	p.Y.Tick.Length = 0
 	p.Y.LineStyle.Width = 0
@@ -199,7 +209,7 @@ func (b *bandPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 	}
 	rule := draw.LineStyle{Color: ruleColor, Width: 0.5}
 	tick := draw.LineStyle{Color: inkColor, Width: 1.3}
-	lab := edgeLabeller{c: c, sty: textStyle(7, inkColor)}
+	lab := edgeLabeller{c: c, sty: textStyle(8, inkColor), pl: newLabelPlacer(c.Rectangle)}
 	for r, row := range b.chart.Rows {
 		yc := float64(n - 1 - r)
 		if r > 0 {
