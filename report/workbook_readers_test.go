@@ -68,8 +68,12 @@ func wbTemplate(t *testing.T, dir, scenario string) string {
 	for _, e := range lib.Entries() {
 		entries = append(entries, e.Name)
 	}
+	caps := map[string][]string{}
+	for _, ty := range cat.Types() {
+		caps[ty] = cat.CapabilityNames(ty)
+	}
 	lists := sweep.Lists{Laws: feasibility.LawNames(), Quantities: feasibility.QuantityNames(), Entries: entries,
-		FacilityTypes: cat.Types(), Techniques: sweep.Techniques}
+		FacilityTypes: cat.Types(), Techniques: sweep.Techniques, Capabilities: caps}
 	path := filepath.Join(dir, "template-"+scenario+".xlsx")
 	if err := sweep.WriteXLSX(path, wbLoad(t, scenario), lists); err != nil {
 		t.Fatal(err)

@@ -205,6 +205,8 @@ func writeAtomic(p string, write func(io.Writer) error) (err error) {
 // Lists are the names the drop-down lists of a written workbook offer.
 type Lists struct {
 	Laws, Quantities, Entries, FacilityTypes, Techniques []string
+	// Capabilities lists each facility type's capabilities.
+	Capabilities map[string][]string
 }
 
 // Fixed document properties, so that the same study gives the same bytes.
@@ -285,6 +287,9 @@ func buildWorkbook(f *excelize.File, s *Study, lists Lists) error {
 		}
 	}
 	if err := writeLists(f, s, lists, bold); err != nil {
+		return err
+	}
+	if err := writeChoices(f, s, lists); err != nil {
 		return err
 	}
 	if err := finishLayout(f); err != nil {

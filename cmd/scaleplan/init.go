@@ -90,8 +90,12 @@ func templateLists() (sweep.Lists, error) {
 	for _, e := range lib.Entries() {
 		entries = append(entries, e.Name)
 	}
+	caps := map[string][]string{}
+	for _, t := range cat.Types() {
+		caps[t] = cat.CapabilityNames(t)
+	}
 	return sweep.Lists{Laws: feasibility.LawNames(), Quantities: feasibility.QuantityNames(), Entries: entries,
-		FacilityTypes: cat.Types(), Techniques: sweep.Techniques}, nil
+		FacilityTypes: cat.Types(), Techniques: sweep.Techniques, Capabilities: caps}, nil
 }
 
 func checkCommand() *cli.Command {
