@@ -292,16 +292,24 @@ func writeSummary(f *excelize.File, res *sweep.Result, bold, title int) error {
 		excelize.Cell{StyleID: bold, Value: "small-model edge set by"}, excelize.Cell{StyleID: bold, Value: "recommended (1:x)"},
 		excelize.Cell{StyleID: bold, Value: "model length [m]"}, excelize.Cell{StyleID: bold, Value: "cost [" + st.Currency + "]"},
 		excelize.Cell{StyleID: bold, Value: "best candidate / reason"},
-		excelize.Cell{StyleID: bold, Value: fmt.Sprintf("robust window, P ≥ %.0f %% (1:x)", 100*st.RobustLevel)}})
-	for _, sr := range res.Strategies {
+		excelize.Cell{StyleID: bold, Value: fmt.Sprintf("robust window, P ≥ %.0f %% (1:x)", 100*st.RobustLevel)},
+		excelize.Cell{StyleID: bold, Value: "map sheet"}})
+	for i, sr := range res.Strategies {
 		c := sr.Best
 		if c == nil {
-			rows = append(rows, []any{sr.Name, sr.Technique, "none", "", "", "", "", "", firstFailing(sr)})
+			rows = append(rows, []any{sr.Name, sr.Technique, "none", "", "", "", "", "", firstFailing(sr), "", mapSheetName(i, sr.Name)})
 			continue
 		}
 		large, small := Edges(c.Window)
 		rows = append(rows, []any{sr.Name, sr.Technique, WindowText(c.Window), large, small, sweep.Scale(c.Recommended),
-			sig(c.ModelLength), money(c.Cost), Candidate(c), RobustText(c)})
+			sig(c.ModelLength), money(c.Cost), Candidate(c), RobustText(c), mapSheetName(i, sr.Name)})
+	}
+	// The map sheet names link to their sheets.
+	first := len(rows) - len(res.Strategies) + 1
+	for i, sr := range res.Strategies {
+		if err := sheetLink(f, "Summary", 11, first+i, mapSheetName(i, sr.Name)); err != nil {
+			return err
+		}
 	}
 	for _, r := range rows {
 		if err := s.add(r...); err != nil {

@@ -3,14 +3,18 @@ package report_test
 import (
 	"context"
 	"encoding/json"
+	"fmt"
 	"os"
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"slices"
 	"strconv"
 	"strings"
 	"testing"
 	"time"
+
+	"github.com/xuri/excelize/v2"
 
 	"scaleplan/feasibility"
 	"scaleplan/materials"
@@ -181,4 +185,40 @@ func wbSysTool(t *testing.T, name, pkg string) string {
 	}
 	t.Skipf("%s is not installed; install %s to run this test", name, pkg)
 	return ""
+}
+
+// TestSummaryLinksToMapSheets: in every scenario's workbook, each
+// strategy's row of the Summary links to that strategy's map sheet, and
+// every link lands on a sheet of the workbook.
+func TestSummaryLinksToMapSheets(t *testing.T) {
+	dir := t.TempDir()
+	for _, sc := range wbScenarios(t) {
+		res := wbRunScenario(t, sc.Name)
+		f := wbOpen(t, wbWrite(t, dir, sc.Name+".xlsx", res))
+		sheets := map[string]bool{}
+		for _, s := range f.GetSheetList() {
+			sheets[s] = true
+		}
+		links := 0
+		for r, row := range wbRows(t, f, "Summary") {
+			for c := range row {
+				cell, _ := excelize.CoordinatesToCellName(c+1, r+1)
+				ok, target, err := f.GetCellHyperLink("Summary", cell)
+				if err != nil || !ok {
+					continue
+				}
+				links++
+				name := strings.TrimSuffix(strings.Trim(strings.TrimSuffix(target, "!A1"), "'"), "'")
+				if !sheets[name] {
+					t.Errorf("%s: Summary!%s links to %q, which is no sheet", sc.Name, cell, target)
+				}
+				if i := slices.IndexFunc(res.Strategies, func(sr *sweep.StrategyResult) bool { return sr.Name == wbAt(row, 0) }); i < 0 || !strings.HasPrefix(name, fmt.Sprintf("Map %d ", i+1)) {
+					t.Errorf("%s: Summary!%s (row of %q) links to %q, not its strategy's map", sc.Name, cell, wbAt(row, 0), name)
+				}
+			}
+		}
+		if links != len(res.Strategies) {
+			t.Errorf("%s: %d links in the Summary, want one per strategy (%d)", sc.Name, links, len(res.Strategies))
+		}
+	}
 }

@@ -172,3 +172,15 @@ func shortName(s string, n int) string {
 	}
 	return strings.TrimRight(string(cut), " -_,;") + "…"
 }
+
+// sheetLink makes the cell at col, row of a sheet being streamed a link
+// to another sheet of the workbook (a location hyperlink, not a formula:
+// the stream writer writes it with the sheet).
+func sheetLink(f *excelize.File, sheet string, col, row int, target string) error {
+	cell, err := excelize.CoordinatesToCellName(col, row)
+	if err != nil {
+		return err
+	}
+	tip := "open the sheet " + target
+	return f.SetCellHyperLink(sheet, cell, "'"+target+"'!A1", "Location", excelize.HyperlinkOpts{Tooltip: &tip})
+}
