@@ -127,3 +127,47 @@ func TestTemplateDropDowns(t *testing.T) {
 	}
 	sameStudy(t, back, s)
 }
+
+// TestInstructionsRowHeights: a wrapped line of the Instructions sheet
+// gets a row tall enough for its lines (15 pt a line at the default font),
+// so printed lines do not run over each other.
+func TestInstructionsRowHeights(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "t.xlsx")
+	if err := WriteXLSX(path, sampleStudy(), testLists()); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer f.Close()
+	rows, err := f.GetRows(instrSheet)
+	if err != nil {
+		t.Fatal(err)
+	}
+	long := 0
+	for i, r := range rows {
+		if len(r) == 0 {
+			continue
+		}
+		n := len([]rune(r[0]))
+		h, err := f.GetRowHeight(instrSheet, i+1)
+		if err != nil {
+			t.Fatal(err)
+		}
+		// A 110-character column holds at most about 110 characters a
+		// line; want at least one line of 15 pt per 110 characters.
+		if want := 15 * float64((n+109)/110); n > 110 && h < want {
+			t.Errorf("Instructions row %d (%d characters) is %.0f pt tall, want at least %.0f", i+1, n, h, want)
+		}
+		if n > 110 {
+			long++
+		}
+	}
+	if long == 0 {
+		t.Fatal("no instruction wraps: the test checks nothing")
+	}
+	if dim, err := f.GetSheetDimension(instrSheet); err != nil || dim == "A1" {
+		t.Errorf("Instructions declares its dimension as %q (%v)", dim, err)
+	}
+}
