@@ -1,7 +1,6 @@
 package report
 
 import (
-	"context"
 	"fmt"
 	"image"
 	"image/color"
@@ -12,7 +11,6 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
-	"scaleplan/materials"
 	"scaleplan/sweep"
 )
 
@@ -73,23 +71,7 @@ func placementScenario(t *testing.T, name string) *sweep.Result {
 	if err != nil {
 		t.Fatal(err)
 	}
-	lib, err := materials.Default()
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat, err := sweep.NewFacilityCatalog()
-	if err != nil {
-		t.Fatal(err)
-	}
-	plan, err := sweep.Prepare(s, lib, cat)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := plan.Run(context.Background())
-	if err != nil {
-		t.Fatal(err)
-	}
-	return res
+	return runStudy(t, s)
 }
 
 // mapTexts draws every map of a result onto recorders and returns, per

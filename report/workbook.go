@@ -221,16 +221,11 @@ var defaultType = regexp.MustCompile(`<Default [^>]*>(</Default>)?`)
 
 // copySortedTypes writes the content-types part with its Default entries
 // sorted: the spreadsheet library lists image types in map order.
-func copySortedTypes(zw *zip.Writer, f *zip.File) error {
-	r, err := f.Open()
-	if err != nil {
-		return err
-	}
-	b, err := io.ReadAll(r)
-	r.Close()
-	if err != nil {
-		return err
-	}
+func copySortedTypes(zw *zip.Writer, f *zip.File) error { return rewriteEntry(zw, f, sortDefaults) }
+
+// sortDefaults sorts the contiguous Default entries of a content-types
+// part.
+func sortDefaults(b []byte) []byte {
 	locs := defaultType.FindAllIndex(b, -1)
 	if len(locs) > 1 {
 		parts := make([]string, len(locs))
@@ -250,13 +245,7 @@ func copySortedTypes(zw *zip.Writer, f *zip.File) error {
 			b = out
 		}
 	}
-	hdr := f.FileHeader
-	w, err := zw.CreateHeader(&zip.FileHeader{Name: hdr.Name, Method: hdr.Method, Modified: hdr.Modified})
-	if err != nil {
-		return err
-	}
-	_, err = w.Write(b)
-	return err
+	return b
 }
 
 // zipOrder keeps the content-types part first, as spreadsheet programs

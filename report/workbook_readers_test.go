@@ -16,8 +16,8 @@ import (
 
 	"github.com/xuri/excelize/v2"
 
-	"scaleplan/feasibility"
 	"scaleplan/materials"
+	"scaleplan/report"
 	"scaleplan/sweep"
 )
 
@@ -68,16 +68,7 @@ func wbTemplate(t *testing.T, dir, scenario string) string {
 	if err != nil {
 		t.Fatal(err)
 	}
-	var entries []string
-	for _, e := range lib.Entries() {
-		entries = append(entries, e.Name)
-	}
-	caps := map[string][]string{}
-	for _, ty := range cat.Types() {
-		caps[ty] = cat.CapabilityNames(ty)
-	}
-	lists := sweep.Lists{Laws: feasibility.LawNames(), Quantities: feasibility.QuantityNames(), Entries: entries,
-		FacilityTypes: cat.Types(), Techniques: sweep.Techniques, Capabilities: caps}
+	lists := sweep.DefaultLists(lib, cat)
 	path := filepath.Join(dir, "template-"+scenario+".xlsx")
 	if err := sweep.WriteXLSX(path, wbLoad(t, scenario), lists); err != nil {
 		t.Fatal(err)
@@ -142,7 +133,7 @@ const (
 // pages and a result workbook within 40.
 func TestWorkbooksPrintWithinPages(t *testing.T) {
 	soffice := loBinary(t)
-	pdfinfo := wbSysTool(t, "pdfinfo", "poppler-utils")
+	pdfinfo := report.SysTool(t, "pdfinfo", "poppler-utils")
 	dir, out := t.TempDir(), t.TempDir()
 	books := []string{wbTemplate(t, dir, wbScenarios(t)[0].Name)}
 	for _, sc := range wbScenarios(t) {
@@ -171,20 +162,6 @@ func TestWorkbooksPrintWithinPages(t *testing.T) {
 			t.Errorf("%s prints on %d pages, more than %d", filepath.Base(b), pages, limit)
 		}
 	}
-}
-
-// wbSysTool finds a program from the system's packages: skipped on a
-// developer's machine without it, a failure on CI (see .ci/run).
-func wbSysTool(t *testing.T, name, pkg string) string {
-	t.Helper()
-	if p, err := exec.LookPath(name); err == nil {
-		return p
-	}
-	if os.Getenv("CI") != "" {
-		t.Fatalf("%s is not installed: CI must install %s (see .ci/run)", name, pkg)
-	}
-	t.Skipf("%s is not installed; install %s to run this test", name, pkg)
-	return ""
 }
 
 // TestSummaryLinksToMapSheets: in every scenario's workbook, each

@@ -137,7 +137,10 @@ func fixDimension(b []byte) []byte {
 }
 
 // copyFixedSheet copies a worksheet part with its dimension corrected.
-func copyFixedSheet(zw *zip.Writer, f *zip.File) error {
+func copyFixedSheet(zw *zip.Writer, f *zip.File) error { return rewriteEntry(zw, f, fixDimension) }
+
+// rewriteEntry copies a zip entry through fix.
+func rewriteEntry(zw *zip.Writer, f *zip.File, fix func([]byte) []byte) error {
 	r, err := f.Open()
 	if err != nil {
 		return err
@@ -152,7 +155,7 @@ func copyFixedSheet(zw *zip.Writer, f *zip.File) error {
 	if err != nil {
 		return err
 	}
-	_, err = w.Write(fixDimension(b))
+	_, err = w.Write(fix(b))
 	return err
 }
 
