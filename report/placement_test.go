@@ -22,6 +22,8 @@ type textRecorder struct {
 	w, h  vg.Length
 	stack []textState
 	texts []drawnText
+	// rules are the long vertical lines stroked (window edges, axes).
+	rules [][2]vg.Point
 }
 
 type textState struct {
@@ -39,16 +41,26 @@ func newTextRecorder(w, h vg.Length) *textRecorder {
 	return &textRecorder{w: w, h: h, stack: []textState{{}}}
 }
 
-func (r *textRecorder) top() *textState                     { return &r.stack[len(r.stack)-1] }
-func (r *textRecorder) SetLineWidth(vg.Length)              {}
-func (r *textRecorder) SetLineDash([]vg.Length, vg.Length)  {}
-func (r *textRecorder) SetColor(color.Color)                {}
-func (r *textRecorder) Rotate(a float64)                    { r.top().rotated = r.top().rotated || a != 0 }
-func (r *textRecorder) Translate(p vg.Point)                { t := r.top(); t.off.X += p.X; t.off.Y += p.Y }
-func (r *textRecorder) Scale(float64, float64)              {}
-func (r *textRecorder) Push()                               { r.stack = append(r.stack, *r.top()) }
-func (r *textRecorder) Pop()                                { r.stack = r.stack[:len(r.stack)-1] }
-func (r *textRecorder) Stroke(vg.Path)                      {}
+func (r *textRecorder) top() *textState                    { return &r.stack[len(r.stack)-1] }
+func (r *textRecorder) SetLineWidth(vg.Length)             {}
+func (r *textRecorder) SetLineDash([]vg.Length, vg.Length) {}
+func (r *textRecorder) SetColor(color.Color)               {}
+func (r *textRecorder) Rotate(a float64)                   { r.top().rotated = r.top().rotated || a != 0 }
+func (r *textRecorder) Translate(p vg.Point)               { t := r.top(); t.off.X += p.X; t.off.Y += p.Y }
+func (r *textRecorder) Scale(float64, float64)             {}
+func (r *textRecorder) Push()                              { r.stack = append(r.stack, *r.top()) }
+func (r *textRecorder) Pop()                               { r.stack = r.stack[:len(r.stack)-1] }
+func (r *textRecorder) Stroke(p vg.Path) {
+	if len(p) != 2 || p[0].Type != vg.MoveComp || p[1].Type != vg.LineComp {
+		return
+	}
+	a, b := p[0].Pos, p[1].Pos
+	if math.Abs(float64(a.X-b.X)) < 0.01 && math.Abs(float64(a.Y-b.Y)) > 0.4*float64(r.h) {
+		off := r.top().off
+		a.X, a.Y, b.X, b.Y = a.X+off.X, a.Y+off.Y, b.X+off.X, b.Y+off.Y
+		r.rules = append(r.rules, [2]vg.Point{a, b})
+	}
+}
 func (r *textRecorder) Fill(vg.Path)                        {}
 func (r *textRecorder) DrawImage(vg.Rectangle, image.Image) {}
 func (r *textRecorder) Size() (vg.Length, vg.Length)        { return r.w, r.h }
@@ -103,7 +115,8 @@ func mapTexts(res *sweep.Result) map[string]*textRecorder {
 
 // TestMapLabelsDoNotCollide draws every map of every built-in scenario
 // and checks, from the text actually drawn and the font's metrics, that no
-// two texts overlap, that every text lies inside the figure (nothing
+// two texts overlap, that no long vertical line (a window edge) runs
+// through a text, that every text lies inside the figure (nothing
 // clipped) and that no text is smaller than 8 pt (the figures are made at
 // the width they are printed, 6.3 in, so text keeps its size on a portrait
 // page).
@@ -126,6 +139,12 @@ func TestMapLabelsDoNotCollide(t *testing.T) {
 				}
 				if a.box.Min.X < -tol || a.box.Min.Y < -tol || a.box.Max.X > rec.w+tol || a.box.Max.Y > rec.h+tol {
 					t.Errorf("%s: %q lies outside the figure (%v in %vx%v)", where, a.s, a.box, rec.w, rec.h)
+				}
+				for _, l := range rec.rules {
+					lo, hi := math.Min(float64(l[0].Y), float64(l[1].Y)), math.Max(float64(l[0].Y), float64(l[1].Y))
+					if l[0].X > a.box.Min.X+tol && l[0].X < a.box.Max.X-tol && hi > float64(a.box.Min.Y)+tol && lo < float64(a.box.Max.Y)-tol {
+						t.Errorf("%s: the line at x = %.1f runs through %q", where, l[0].X, a.s)
+					}
 				}
 				for _, b := range rec.texts[i+1:] {
 					dx := math.Min(float64(a.box.Max.X), float64(b.box.Max.X)) - math.Max(float64(a.box.Min.X), float64(b.box.Min.X))

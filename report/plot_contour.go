@@ -229,7 +229,7 @@ func clampMargin(v float64) float64 {
 
 const (
 	contourHeight = 6 * vg.Inch
-	contourBarW   = 1.15 * vg.Inch
+	contourBarW   = 0.95 * vg.Inch
 )
 
 func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
