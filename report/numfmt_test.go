@@ -67,3 +67,17 @@ func TestShortName(t *testing.T) {
 		}
 	}
 }
+
+// TestRequireKind: requirement maps are named by capability and limit,
+// with hyphens, and a limit named like its capability is not repeated.
+func TestRequireKind(t *testing.T) {
+	for _, tc := range []struct{ capability, limit, want string }{
+		{"tank_width", "blockage", "require-tank-width-blockage"},
+		{"wave_height_max", "wave_height_max", "require-wave-height-max"},
+		{"wave_height_max", "wave height max", "require-wave-height-max"},
+	} {
+		if got := requireKind(RequirementSeries{Capability: tc.capability, Limit: tc.limit}); got != tc.want {
+			t.Errorf("requireKind(%s, %s) = %q, want %q", tc.capability, tc.limit, got, tc.want)
+		}
+	}
+}
