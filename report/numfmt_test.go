@@ -81,3 +81,29 @@ func TestRequireKind(t *testing.T) {
 		}
 	}
 }
+
+// TestSigFormat: the display formats show four significant figures
+// (formats written by hand for each magnitude).
+func TestSigFormat(t *testing.T) {
+	for x, want := range map[float64]string{
+		0: "0", 11.43: "0.00", 2.456: "0.000", 0.1234: "0.0000", 0.001234: "0.000000", 123.4: "0.0",
+		1234.5: "#,##0", 123456: "#,##0", 1.2e-5: "0.000E+00", 3e10: "0.000E+00", -45.67: "0.00",
+	} {
+		if got := sigFormat(x); got != want {
+			t.Errorf("sigFormat(%v) = %q, want %q", x, got, want)
+		}
+	}
+}
+
+// TestSameCurve: a requirement curve equal to an earlier one is found (so
+// it is drawn dashed over it), a different one is not.
+func TestSameCurve(t *testing.T) {
+	a := RequirementCurve{Label: "a", Needed: []float64{1, 2, math.NaN()}}
+	b := RequirementCurve{Label: "b", Needed: []float64{1, 2.5, 3}}
+	if got := sameCurve([]RequirementCurve{b, a}, []float64{1, 2, math.NaN()}); got != 1 {
+		t.Errorf("sameCurve found %d, want 1", got)
+	}
+	if got := sameCurve([]RequirementCurve{a}, []float64{1, 2, 3}); got != -1 {
+		t.Errorf("sameCurve found %d for a different curve, want -1", got)
+	}
+}

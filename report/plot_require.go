@@ -142,7 +142,15 @@ func sameCurve(curves []RequirementCurve, needed []float64) int {
 		}
 		same := true
 		for k, v := range c.Needed {
-			if w := needed[k]; v != w && !(math.IsNaN(v) && math.IsNaN(w)) && math.Abs(v-w) > 1e-12*math.Abs(v) {
+			w := needed[k]
+			if math.IsNaN(v) || math.IsNaN(w) {
+				if math.IsNaN(v) != math.IsNaN(w) {
+					same = false
+					break
+				}
+				continue
+			}
+			if v != w && math.Abs(v-w) > 1e-12*math.Abs(v) {
 				same = false
 				break
 			}
