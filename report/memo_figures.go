@@ -69,13 +69,17 @@ func writeFigures(b *strings.Builder, figures []Figure) {
 }
 
 // measuredQuantities are the quantities the study measures: those its
-// prototype items scale as, and those of the dimension of each of its
-// measures (the first response or geometry quantity of that dimension).
-// The memo's prediction rules are given for these.
+// prototype items scale as, those of the dimension of each of its
+// measures (the first response or geometry quantity of that dimension),
+// and those its predict setting names. The memo's prediction rules are
+// given for these.
 func measuredQuantities(p *sweep.Plan) map[string]bool {
 	keep := map[string]bool{}
 	if p == nil {
 		return keep
+	}
+	for _, q := range p.Settings.Predict {
+		keep[q] = true
 	}
 	for _, it := range p.Items {
 		if it.ScalesAs != "" {

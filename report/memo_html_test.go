@@ -91,3 +91,26 @@ func TestMemoHTMLEveryScenario(t *testing.T) {
 		})
 	}
 }
+
+// TestMemoPredictSetting: the prediction rules cover the quantities the
+// study measures, and those its predict setting adds (a resistance test
+// predicts force and power from the model).
+func TestMemoPredictSetting(t *testing.T) {
+	s := wbLoad(t, "tug")
+	before := report.Memo(wbRun(t, s))
+	if strings.Contains(before, "| force |") || !strings.Contains(before, "| length |") {
+		t.Fatalf("the tug's memo without predict: want rules for length, none for force:\n%s", before)
+	}
+	set := s.Settings["predict"]
+	set.Name, set.Value = "predict", "force, power"
+	set.Cell.Sheet, set.Cell.Row, set.Cell.Col = "Study", 40, 2
+	s.Settings["predict"] = set
+	after := report.Memo(wbRun(t, s))
+	// Froude scaling: force ∝ kL³·kρ·kg and power ∝ kL^(7/2)·kρ·kg^(3/2)
+	// (common practice).
+	for _, want := range []string{"| force | kL^3 · k(density) · k(gravity) |", "| power | kL^(7/2) · k(density) · k(gravity)^(3/2) |"} {
+		if !strings.Contains(after, want) {
+			t.Errorf("with predict = force, power the memo lacks %q", want)
+		}
+	}
+}

@@ -30,9 +30,10 @@ type Settings struct {
 	ReferenceSpeed      string // prototype item giving the test speed
 	MaxPoints           int    // refuse sweeps larger than this
 	InputsDate          string
-	Samples             int     // draws of the uncertain inputs (0: none)
-	Seed                uint64  // of the draws, for reproducible results
-	RobustLevel         float64 // probability a robust scale must reach
+	Samples             int      // draws of the uncertain inputs (0: none)
+	Seed                uint64   // of the draws, for reproducible results
+	RobustLevel         float64  // probability a robust scale must reach
+	Predict             []string // quantities the memo gives prediction rules for, besides the measured ones
 	cells               map[string]Cell
 }
 
@@ -45,6 +46,7 @@ var settingDefaults = map[string]string{
 	"prototype_medium": "", "prototype_medium_conditions": "", "prototype_material": "", "prototype_material_conditions": "",
 	"reference_length": "", "reference_speed": "", "max_points": "100000000", "inputs_date": "",
 	"samples": "0", "seed": "1", "robust_level": "0.95",
+	"predict": "",
 }
 
 var settingRequired = []string{"scale_from", "scale_to"}
@@ -167,6 +169,9 @@ func parseSettings(s *Study, ps *Problems) Settings {
 	st.ReferenceLength, st.ReferenceSpeed = text("reference_length"), text("reference_speed")
 	st.MaxPoints = integer("max_points", 1, math.MaxInt32)
 	st.InputsDate = text("inputs_date")
+	if c, ok := get("predict"); ok {
+		st.Predict = parsePredict(c.Value, c.Cell, ps)
+	}
 	st.Samples = integer("samples", 0, 10_000_000)
 	st.Seed = uint64(integer("seed", 0, math.MaxInt32))
 	st.RobustLevel = number("robust_level")
