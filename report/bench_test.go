@@ -15,21 +15,28 @@ import (
 
 func syntheticResult(b *testing.B) *sweep.Result {
 	b.Helper()
+	return runStudy(b, sweep.Synthetic(2000, 0, 40, 4))
+}
+
+// runStudy prepares a study with a fresh library and facility catalogue
+// and runs it.
+func runStudy(tb testing.TB, s *sweep.Study) *sweep.Result {
+	tb.Helper()
 	lib, err := materials.Default()
 	if err != nil {
-		b.Fatal(err)
+		tb.Fatal(err)
 	}
 	cat, err := sweep.NewFacilityCatalog()
 	if err != nil {
-		b.Fatal(err)
+		tb.Fatal(err)
 	}
-	p, err := sweep.Prepare(sweep.Synthetic(2000, 0, 40, 4), lib, cat)
+	p, err := sweep.Prepare(s, lib, cat)
 	if err != nil {
-		b.Fatal(err)
+		tb.Fatal(err)
 	}
 	res, err := p.Run(context.Background())
 	if err != nil {
-		b.Fatal(err)
+		tb.Fatal(err)
 	}
 	return res
 }

@@ -23,10 +23,14 @@ func WriteMemo(path string, res *sweep.Result) error {
 }
 
 // Memo returns the memo text.
-func Memo(res *sweep.Result) string {
+func Memo(res *sweep.Result) string { return memoText(res, nil) }
+
+// memoText is the memo with its figures (none for nil).
+func memoText(res *sweep.Result, figures []Figure) string {
 	st := res.Plan.Settings
 	b := &strings.Builder{}
 	fmt.Fprintf(b, "# Model test proposal: %s\n\n", res.Name)
+	fmt.Fprintf(b, "*Prepared with scaleplan %s from the study's inputs dated %s.*\n\n", BuildVersion(), orDash(st.InputsDate))
 	if st.Purpose != "" {
 		fmt.Fprintf(b, "**Purpose.** %s\n\n", st.Purpose)
 	}
@@ -35,16 +39,16 @@ func Memo(res *sweep.Result) string {
 	memoWarnings(b, res)
 
 	b.WriteString("## Strategies compared\n\n")
-	b.WriteString("| strategy | technique | feasible window | large-model edge | small-model edge | recommended | cost |\n|---|---|---|---|---|---|---|\n")
+	b.WriteString("| strategy (technique) | window | limited by (large / small model) | scale | cost |\n|---|---|---|---|---|\n")
 	for _, sr := range res.Strategies {
 		c := sr.Best
 		if c == nil {
-			fmt.Fprintf(b, "| %s | %s | none | %s | | | |\n", md(sr.Name), sr.Technique, md(firstFailing(sr)))
+			fmt.Fprintf(b, "| %s (%s) | none | %s | | |\n", md(sr.Name), Label(sr.Technique), md(firstFailing(sr)))
 			continue
 		}
 		large, small := Edges(c.Window)
-		fmt.Fprintf(b, "| %s | %s | %s | %s | %s | %s | %s |\n", md(sr.Name), sr.Technique, WindowText(c.Window),
-			md(large), md(small), sweep.Scale(c.Recommended), Money(c.Cost, st.Currency))
+		fmt.Fprintf(b, "| %s (%s) | %s | %s / %s | %s | %s |\n", md(sr.Name), Label(sr.Technique), WindowText(c.Window),
+			md(large), md(small), sweep.Scale(c.Recommended), HumanMoney(c.Cost, st.Currency))
 	}
 	b.WriteString("\n")
 	memoTradeoffs(b, res)
@@ -56,16 +60,16 @@ func Memo(res *sweep.Result) string {
 			"The table above says what closes each window; relax a law, choose another facility or medium, or widen the sweep.\n\n")
 	} else {
 		large, small := Edges(rec.Window)
-		fmt.Fprintf(b, "Use **%s** (%s) at **%s**", recS.Name, recS.Technique, sweep.Scale(rec.Recommended))
+		fmt.Fprintf(b, "Use **%s** (%s) at **%s**", recS.Name, Label(recS.Technique), sweep.Scale(rec.Recommended))
 		if !math.IsNaN(rec.ModelLength) {
-			fmt.Fprintf(b, ", a model %s m long", Num3(rec.ModelLength))
+			fmt.Fprintf(b, ", a model %s m long", HumanNumber(rec.ModelLength))
 		}
 		fmt.Fprintf(b, ", with %s. The feasible window is %s: the largest model is limited by %s, the smallest by %s.",
 			Candidate(rec), WindowText(rec.Window), large, small)
 		if !math.IsNaN(rec.Cost) {
-			fmt.Fprintf(b, " The campaign is estimated at %s at this scale", Money(rec.Cost, st.Currency))
+			fmt.Fprintf(b, " The campaign is estimated at %s at this scale", HumanMoney(rec.Cost, st.Currency))
 			if o := res.Assume(recS).Cheapest; o != nil && (o.Cheapest != rec.Recommended || o != rec) {
-				fmt.Fprintf(b, "; the cheapest feasible option over all combinations of the strategy is %s with %s, at %s", sweep.Scale(o.Cheapest), Candidate(o), Money(o.CheapestCost, st.Currency))
+				fmt.Fprintf(b, "; the cheapest feasible option over all combinations of the strategy is %s with %s, at %s", sweep.Scale(o.Cheapest), Candidate(o), HumanMoney(o.CheapestCost, st.Currency))
 			}
 			b.WriteString(".")
 		}
@@ -75,7 +79,7 @@ func Memo(res *sweep.Result) string {
 			fmt.Fprintf(b, "**Uncertain inputs.** Drawing the study's uncertain inputs %d times, the scales that stay feasible with a probability of at least %.0f %% are %s (sampling error at most %.3f), against %s on nominal values.",
 				r.Samples, 100*r.Level, WindowText(r.Window), r.StdErr, WindowText(rec.Window))
 			if len(r.Sensitivity) > 0 {
-				fmt.Fprintf(b, " The input that matters most is %s: knowing it exactly would widen that window by %.2f decades of scale.", r.Sensitivity[0].Input, r.Sensitivity[0].Gain)
+				fmt.Fprintf(b, " The input that matters most is %s: knowing it exactly would widen that window by %.2f decades of scale.", Label(r.Sensitivity[0].Input), r.Sensitivity[0].Gain)
 			}
 			if r.Note != "" {
 				fmt.Fprintf(b, " (%s.)", r.Note)
@@ -95,8 +99,8 @@ func Memo(res *sweep.Result) string {
 			fmt.Fprintf(b, "- %s\n", relaxedSentence(m))
 		}
 		if f := rec.Friction; f != nil {
-			fmt.Fprintf(b, "- Skin friction is corrected with the ITTC-1957 line: C_F = %.4g in the model (Re %.3g) and %.4g at full scale (Re %.3g), a correction of ΔC_F = %.4g.\n",
-				f.CFModel, f.ReModel, f.CFProto, f.ReProto, f.Delta)
+			fmt.Fprintf(b, "- Skin friction is corrected with the ITTC-1957 line: C_F = %s in the model (Re %s) and %s at full scale (Re %s), a correction of ΔC_F = %s.\n",
+				HumanNumber(f.CFModel), HumanNumber(f.ReModel), HumanNumber(f.CFProto), HumanNumber(f.ReProto), HumanNumber(f.Delta))
 		}
 		for _, pv := range rec.Required {
 			what := "required"
@@ -104,7 +108,7 @@ func Memo(res *sweep.Result) string {
 				what = "tuned"
 			}
 			fmt.Fprintf(b, "- The model's %s is %s: %s %s at the recommended scale (%s to %s across the window; %s).\n",
-				pv.Quantity, what, Num3(pv.AtRecommended), unitOf(pv.Quantity), Num3(pv.AtLo), Num3(pv.AtHi), pv.Law)
+				Label(pv.Quantity), what, HumanNumber(pv.AtRecommended), unitOf(pv.Quantity), HumanNumber(pv.AtLo), HumanNumber(pv.AtHi), lawProse(pv.Law))
 			if recS.Technique == "substitute" {
 				if len(pv.Matches) == 0 {
 					b.WriteString("  No entry of the library meets it within the study's tolerance.\n")
@@ -114,30 +118,32 @@ func Memo(res *sweep.Result) string {
 			}
 		}
 		for _, m := range rec.Measures {
-			fmt.Fprintf(b, "- %s: %s %s at the recommended scale (%s to %s across the window).\n", m.Name, Num3(m.AtRecommended), m.Unit, Num3(m.AtLo), Num3(m.AtHi))
+			fmt.Fprintf(b, "- %s: %s %s at the recommended scale (%s to %s across the window).\n", Label(m.Name), HumanNumber(m.AtRecommended), m.Unit, HumanNumber(m.AtLo), HumanNumber(m.AtHi))
 		}
 		if !math.IsNaN(rec.AddedMass) {
 			fmt.Fprintf(b, "- Added mass: dummy weights must raise the model material's density by %s kg/m³, %s kg in total at the recommended scale.\n",
-				Num3(rec.AddedDensity), Num3(rec.AddedMass))
+				HumanNumber(rec.AddedDensity), HumanNumber(rec.AddedMass))
 		}
 		if rec.PoissonFlag {
 			fmt.Fprintf(b, "- %s.\n", rec.PoissonNote)
 		}
 		b.WriteString("\n## Prediction rules\n\n")
 		b.WriteString("A model measurement times the multiplier gives the prototype value.\n")
+		keep := measuredQuantities(res.Plan)
 		if rec.Factors != nil {
-			predictionTable(b, caseSolution(recS, rec), rec.Factors)
+			predictionTable(b, caseSolution(recS, rec), rec.Factors, keep)
 		} else {
 			// A joint window: one table per case, at the joint scale.
 			for _, cs := range recS.Cases {
 				if f, c := CaseFactors(recS, cs, rec); f != nil {
 					fmt.Fprintf(b, "\nCase %s (%s), at %s:\n", cs.Case, Candidate(c), sweep.Scale(rec.Recommended))
-					predictionTable(b, cs.Solution, f)
+					predictionTable(b, cs.Solution, f, keep)
 				}
 			}
 		}
 	}
 	memoAssumptions(b, res)
+	writeFigures(b, figures)
 	b.WriteString("\n## Cautions\n\n")
 	for _, c := range Cautions {
 		fmt.Fprintf(b, "- %s\n", c)
@@ -182,27 +188,36 @@ func limitingCapability(res *sweep.Result, c *sweep.ComboResult) string {
 			continue
 		}
 		s := fmt.Sprintf("**Facility.** The largest model is limited by the %s of %s (limit %q): at %s it needs %s %s, which the facility has.",
-			r.Capability, c.Facility, r.Limit, sweep.Scale(c.Window[0].Lo), Num3(r.Have), r.Unit)
+			Label(r.Capability), c.Facility, r.Limit, sweep.Scale(c.Window[0].Lo), HumanNumber(r.Have), r.Unit)
 		if !math.IsNaN(c.AnyFacility) && c.AnyFacility < c.Window[0].Lo {
 			i := nearest(res.Plan.Grid, c.AnyFacility)
 			s += fmt.Sprintf(" A model as large as %s, which the other limits allow, would need %s %s (the other capabilities as they are).",
-				sweep.Scale(c.AnyFacility), Num3(r.Values[i]), r.Unit)
+				sweep.Scale(c.AnyFacility), HumanNumber(r.Values[i]), r.Unit)
 		}
 		return s
 	}
 	return fmt.Sprintf("**Facility.** The largest model is limited by %q, not by a capability of %s.", edge, c.Facility)
 }
 
-// predictionTable writes the prediction rules of a solution.
-func predictionTable(b *strings.Builder, sol interface{ LawString(string) string }, factors map[string]float64) {
+// predictionTable writes the prediction rules of a solution for the
+// quantities in keep (all when keep is empty), with readable names; a
+// factor the medium or material gives (a law that only names itself) says
+// so instead of repeating itself.
+func predictionTable(b *strings.Builder, sol interface{ LawString(string) string }, factors map[string]float64, keep map[string]bool) {
 	b.WriteString("\n| quantity | scale law | multiplier |\n|---|---|---|\n")
 	keys := make([]string, 0, len(factors))
 	for q := range factors {
-		keys = append(keys, q)
+		if len(keep) == 0 || keep[q] {
+			keys = append(keys, q)
+		}
 	}
 	sort.Strings(keys)
 	for _, q := range keys {
-		fmt.Fprintf(b, "| %s | %s | %s |\n", q, md(sol.LawString(q)), Num3(factors[q]))
+		law := ReadableLaw(sol.LawString(q))
+		if law == "" {
+			law = "given by the model medium or material"
+		}
+		fmt.Fprintf(b, "| %s | %s | %s |\n", md(Label(q)), md(law), HumanNumber(factors[q]))
 	}
 }
 

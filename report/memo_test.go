@@ -60,9 +60,9 @@ func wbMemoTable(section string) [][]string {
 	return rows
 }
 
-// wbMemoMoney parses a cost as the memo prints it ("16068 EUR").
+// wbMemoMoney parses a cost as the memo prints it ("16,070 EUR").
 func wbMemoMoney(s, currency string) (float64, bool) {
-	v, err := strconv.ParseFloat(strings.TrimSuffix(s, " "+currency), 64)
+	v, err := strconv.ParseFloat(strings.ReplaceAll(strings.TrimSuffix(s, " "+currency), ",", ""), 64)
 	return v, err == nil
 }
 
@@ -90,28 +90,29 @@ func wbCheckMemo(t *testing.T, memo string, res *sweep.Result, sum wbSummary) {
 	}
 	for i, sr := range res.Strategies {
 		row := rows[i]
-		if len(row) != 7 {
-			t.Errorf("memo row %q: %d cells, want 7", row, len(row))
+		if len(row) != 5 {
+			t.Errorf("memo row %q: %d cells, want 5 (a document converter breaks wider tables)", row, len(row))
 			continue
 		}
-		if row[0] != sr.Name || row[1] != sr.Technique {
-			t.Errorf("memo row %d: %q (%s), want %q (%s)", i+1, row[0], row[1], sr.Name, sr.Technique)
+		if want := sr.Name + " (" + report.Label(sr.Technique) + ")"; row[0] != want {
+			t.Errorf("memo row %d: %q, want %q", i+1, row[0], want)
 		}
 		if sr.Best == nil {
-			if row[2] != "none" || sum.cell(i, "window (1:x)") != "none" {
-				t.Errorf("memo row %q: window %q, Summary %q, want none in both", sr.Name, row[2], sum.cell(i, "window (1:x)"))
+			if row[1] != "none" || sum.cell(i, "window (1:x)") != "none" {
+				t.Errorf("memo row %q: window %q, Summary %q, want none in both", sr.Name, row[1], sum.cell(i, "window (1:x)"))
 			}
 			continue
 		}
-		for _, pair := range []struct {
-			memo int
-			col  string
-		}{{2, "window (1:x)"}, {3, "large-model edge"}, {4, "small-model edge"}, {5, "recommended (1:x)"}} {
-			if got, want := row[pair.memo], sum.cell(i, pair.col); got != want {
-				t.Errorf("strategy %q: the memo says %s %q, the Summary %q", sr.Name, pair.col, got, want)
-			}
+		if got, want := row[1], sum.cell(i, "window (1:x)"); got != want {
+			t.Errorf("strategy %q: the memo says window %q, the Summary %q", sr.Name, got, want)
 		}
-		wbCheckMemoCost(t, "strategy "+sr.Name+" in the memo's table", row[6], sum.cell(i, "cost ["), st.Currency)
+		if got, want := row[2], sum.cell(i, "large-model edge")+" / "+sum.cell(i, "small-model edge"); got != want {
+			t.Errorf("strategy %q: the memo says the edges are set by %q, the Summary %q", sr.Name, got, want)
+		}
+		if got, want := row[3], sum.cell(i, "recommended (1:x)"); got != want {
+			t.Errorf("strategy %q: the memo recommends %q, the Summary %q", sr.Name, got, want)
+		}
+		wbCheckMemoCost(t, "strategy "+sr.Name+" in the memo's table", row[4], sum.cell(i, "cost ["), st.Currency)
 	}
 
 	// The recommendation.
@@ -178,18 +179,19 @@ func wbCheckMemo(t *testing.T, memo string, res *sweep.Result, sum wbSummary) {
 	}
 }
 
-// wbCheckMemoCost checks a cost the memo prints against the Summary cell.
+// wbCheckMemoCost checks a cost the memo prints (to four significant
+// figures) against the Summary cell.
 func wbCheckMemoCost(t *testing.T, where, memo, cell, currency string) {
 	t.Helper()
 	if cell == "" {
-		if memo != "-" && memo != "" {
+		if memo != "–" && memo != "" {
 			t.Errorf("%s: cost %q, but the Summary has none", where, memo)
 		}
 		return
 	}
 	v, ok := wbMemoMoney(memo, currency)
 	w, err := strconv.ParseFloat(cell, 64)
-	if !ok || err != nil || v != w {
-		t.Errorf("%s: cost %q, the Summary %q %s", where, memo, cell, currency)
+	if !ok || err != nil || math.Abs(v-w) > 0.5*math.Max(1, math.Pow(10, math.Floor(math.Log10(math.Abs(w)))-3)) {
+		t.Errorf("%s: cost %q, the Summary %q %s (want it to four significant figures)", where, memo, cell, currency)
 	}
 }

@@ -18,7 +18,6 @@ import (
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
-	"gonum.org/v1/plot/vg/vgpdf"
 	"gonum.org/v1/plot/vg/vgsvg"
 
 	"scaleplan/sweep"
@@ -59,8 +58,10 @@ const (
 	MaxBandRows = 60
 	// plotDPI is the resolution of PNG maps.
 	plotDPI = 120
-	// plotWidth is the width of every map.
-	plotWidth = 9 * vg.Inch
+	// plotWidth is the width of every map: the text width of a portrait
+	// A4 or Letter page (6.3 in), so a map placed in a document keeps its
+	// text at the size it was set (8 pt and more).
+	plotWidth = 6.3 * vg.Inch
 )
 
 // ScaleAxisLabel is the label of every scale axis.
@@ -123,7 +124,7 @@ func WritePlots(dir, base string, res *sweep.Result, format string) ([]string, e
 			}
 		}
 		for _, rs := range RequirementData(res, sr) {
-			kind := "require-" + FileName(rs.Capability+"-"+rs.Limit)
+			kind := requireKind(rs)
 			if err := write(kind, i, sr, plotWidth, requirementHeight, func(dc draw.Canvas) { drawRequirement(dc, res, rs) }); err != nil {
 				return files, err
 			}
@@ -154,7 +155,7 @@ func renderPlot(format string, w, h vg.Length, date string, drawFn func(draw.Can
 	case PlotSVG:
 		c = vgsvg.New(w, h)
 	case PlotPDF:
-		c = vgpdf.New(w, h)
+		c = newPDFCanvas(w, h, pdfTime(date))
 	default:
 		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(plotDPI))}
 	}
@@ -229,8 +230,10 @@ var (
 // axis of scale.
 func newPlot(title string, xmin, xmax float64) *plot.Plot {
 	p := plot.New()
-	p.Title.Text = title
 	p.Title.TextStyle.Font = font.From(sansFont, 10)
+	// Titles wrap to the plot area (the figure less its margins and a
+	// colour bar).
+	p.Title.Text = wrapText(p.Title.TextStyle, title, plotWidth-1.5*vg.Inch)
 	p.Title.Padding = 6
 	for _, ax := range []*plot.Axis{&p.X, &p.Y} {
 		ax.Label.TextStyle.Font = font.From(sansFont, 10)
@@ -238,6 +241,7 @@ func newPlot(title string, xmin, xmax float64) *plot.Plot {
 		ax.Padding = 0
 	}
 	p.Legend.TextStyle.Font = font.From(sansFont, 8.5)
+	p.Legend.Padding = 2 // rows of the legend one line apart, not closer
 	if !(xmax > xmin) {
 		xmin, xmax = xmin/1.1, xmax*1.1
 	}
@@ -263,7 +267,15 @@ func plainNumber(v float64) string {
 // axis, or fewer on a long one) and labels them with format; the other
 // integers × 10ⁿ are minor ticks. An axis too short for any of these gets
 // evenly spaced labels.
-type logTicks struct{ format func(float64) string }
+type logTicks struct {
+	format func(float64) string
+	// perDecade, when known, is the axis length of a decade: a short axis
+	// gets fewer labels so they do not run into each other.
+	perDecade vg.Length
+}
+
+// sparseMantissas label a short axis: 1 × 10ⁿ, or 1 and 3 × 10ⁿ.
+var sparseMantissas = [][]float64{{1}, {1, 3}}
 
 var tickMantissas = [][]float64{{1}, {1, 2, 5}, {1, 2, 3, 5}, {1, 2, 3, 4, 5, 6, 7, 8, 9}}
 
@@ -285,7 +297,11 @@ func (t logTicks) Ticks(min, max float64) []plot.Tick {
 		return out
 	}
 	var major []float64
-	for i, ms := range tickMantissas {
+	sets := tickMantissas
+	if t.perDecade > 0 && t.perDecade < 110 {
+		sets = sparseMantissas
+	}
+	for i, ms := range sets {
 		vs := values(ms)
 		if len(vs) > 12 && i > 0 {
 			break
@@ -415,6 +431,9 @@ type edgeLabeller struct {
 	c     draw.Canvas
 	sty   text.Style
 	taken [][2]vg.Length
+	// pl, when set, also keeps the labels clear of the map's other labels
+	// and obstacles (see labelPlacer).
+	pl *labelPlacer
 }
 
 const edgeGap = vg.Length(2.5)
@@ -440,7 +459,11 @@ func (l *edgeLabeller) place(x, y vg.Length, label string, dir int, clr color.Co
 		if d < 0 {
 			a = x - edgeGap - w
 		}
-		if l.free(a, a+w) {
+		box := labelBox(l.sty, vg.Point{X: a, Y: y - l.sty.FontExtents().Descent}, label)
+		if l.free(a, a+w) && (l.pl == nil || l.pl.free(box)) {
+			if l.pl != nil {
+				l.pl.boxes = append(l.pl.boxes, box)
+			}
 			sty := l.sty
 			sty.Color = clr
 			sty.XAlign = draw.XLeft

@@ -5,8 +5,10 @@ import (
 	"image/color"
 	"math"
 	"sort"
+	"strings"
 
 	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 
@@ -106,7 +108,7 @@ func bandRowsKept(all []*sweep.ComboResult, best *sweep.ComboResult) []int {
 
 // Band chart geometry.
 const (
-	bandBarW      = 1.15 * vg.Inch // colour-bar strip
+	bandBarW      = 0.95 * vg.Inch // colour-bar strip
 	bandFixedH    = 2.1 * vg.Inch  // title, axis and margins
 	bandRowH      = 0.36 * vg.Inch
 	bandRowHDense = 0.30 * vg.Inch // above 20 rows
@@ -125,7 +127,7 @@ func bandSize(bc BandChart) (w, h vg.Length) {
 }
 
 func drawBand(dc draw.Canvas, res *sweep.Result, bc BandChart) {
-	title := fmt.Sprintf("%s: %s (%s), margin to the tightest limit", res.Name, bc.Strategy, bc.Technique)
+	title := fmt.Sprintf("%s: %s (%s), margin to the tightest limit", res.Name, bc.Strategy, Label(bc.Technique))
 	feasible := false
 	for _, row := range bc.Rows {
 		feasible = feasible || !row.Combo.Window.Empty()
@@ -149,13 +151,16 @@ func drawBand(dc draw.Canvas, res *sweep.Result, bc BandChart) {
 	var ticks plot.ConstantTicks
 	noData := false
 	for r, row := range bc.Rows {
-		label := clip(row.Label, 56)
+		label := row.Label
 		if row.Best {
 			label += " [recommended]"
 		}
 		if row.Combo.Err != "" {
 			label += " [error]"
 		}
+		// Row names take two lines of at most a quarter of the width,
+		// leaving the scale axis room for its labels.
+		label = rowLabel(textStyle(8.5, inkColor), label, plotWidth/4)
 		ticks = append(ticks, plot.Tick{Value: float64(n-1-r) + (barLo+barHi)/2, Label: label})
 		noData = noData || row.Margin == nil
 		for _, m := range row.Margin {
@@ -164,6 +169,14 @@ func drawBand(dc draw.Canvas, res *sweep.Result, bc BandChart) {
 	}
 	sort.Slice(ticks, func(i, j int) bool { return ticks[i].Value < ticks[j].Value })
 	p.Y.Tick.Marker = ticks
+	// The scale axis gets what the row names and the colour bar leave.
+	widest := vg.Length(0)
+	for _, tk := range ticks {
+		widest = max(widest, textStyle(8.5, inkColor).Width(tk.Label))
+	}
+	if d := math.Log10(bc.X[len(bc.X)-1] / bc.X[0]); d > 0 {
+		p.X.Tick.Marker = logTicks{format: scaleLabel, perDecade: (plotWidth - bandBarW - widest - 40) / vg.Length(d)}
+	}
 	p.Y.Tick.Label.Font.Size = 8.5
 	p.Y.Tick.Length = 0
 	p.Y.LineStyle.Width = 0
@@ -199,7 +212,7 @@ func (b *bandPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 	}
 	rule := draw.LineStyle{Color: ruleColor, Width: 0.5}
 	tick := draw.LineStyle{Color: inkColor, Width: 1.3}
-	lab := edgeLabeller{c: c, sty: textStyle(7, inkColor)}
+	lab := edgeLabeller{c: c, sty: textStyle(8, inkColor), pl: newLabelPlacer(c.Rectangle)}
 	for r, row := range b.chart.Rows {
 		yc := float64(n - 1 - r)
 		if r > 0 {
@@ -242,6 +255,8 @@ func (b *bandPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 		for _, e := range row.Edges {
 			xe := trX(e.KL)
 			c.StrokeLine2(tick, xe, trY(yc+tickLo), xe, trY(yc+tickHi))
+			// No edge label may run over a tick.
+			lab.pl.avoid(vg.Rectangle{Min: vg.Point{X: xe - 1, Y: trY(yc + tickLo)}, Max: vg.Point{X: xe + 1, Y: trY(yc + tickHi)}})
 		}
 		lab.taken = lab.taken[:0]
 		lab.labelEdges(row.Combo.Window, trX, trY(yc+edgeBaseline))
@@ -262,4 +277,17 @@ func (b *bandPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 func (b *bandPlotter) DataRange() (xmin, xmax, ymin, ymax float64) {
 	x := b.chart.X
 	return x[0], x[len(x)-1], -0.5, float64(len(b.chart.Rows)) - 0.5
+}
+
+// rowLabel wraps a band-chart row name into at most two lines of width w,
+// shortening the second with "…" when the name is longer.
+func rowLabel(sty text.Style, s string, w vg.Length) string {
+	lines := strings.Split(wrapText(sty, s, w), "\n")
+	if len(lines) <= 2 {
+		for i := range lines {
+			lines[i] = fitText(sty, lines[i], w)
+		}
+		return strings.Join(lines, "\n")
+	}
+	return fitText(sty, lines[0], w) + "\n" + fitText(sty, strings.Join(lines[1:], " "), w)
 }

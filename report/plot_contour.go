@@ -229,7 +229,7 @@ func clampMargin(v float64) float64 {
 
 const (
 	contourHeight = 6 * vg.Inch
-	contourBarW   = 1.15 * vg.Inch
+	contourBarW   = 0.95 * vg.Inch
 )
 
 func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
@@ -360,26 +360,38 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 	for _, line := range isolines(u, v, z, 0) {
 		c.StrokeLines(bold, toCanvas(line))
 	}
-	// Iso-lines of the study's measures, dotted, labelled at their middle.
+	// Iso-lines of the study's measures, dotted, each labelled where its
+	// label fits: inside the map, clear of the other labels and of the
+	// recommended point.
+	pl := newLabelPlacer(c.Rectangle)
+	rec := vg.Point{X: -1e9, Y: -1e9}
+	if k, a := cm.Combo.Recommended, cm.Combo.Axis; !math.IsNaN(k) && !math.IsNaN(a) {
+		rec = vg.Point{X: trX(k), Y: trY(a)}
+		pl.avoid(vg.Rectangle{Min: vg.Point{X: rec.X - 6, Y: rec.Y - 6}, Max: vg.Point{X: rec.X + 6, Y: rec.Y + 6}})
+	}
 	isoSty := draw.LineStyle{Color: color.NRGBA{0x20, 0x20, 0x20, 0xFF}, Width: 1, Dashes: []vg.Length{1.5, 2.5}}
-	lab := textStyle(7, color.NRGBA{0x20, 0x20, 0x20, 0xFF})
+	lab := textStyle(8, color.NRGBA{0x20, 0x20, 0x20, 0xFF})
 	for _, im := range cm.Iso {
 		for _, lvl := range im.Levels {
+			txt := fmt.Sprintf("%s %s %s", Label(im.Name), HumanNumber(lvl), im.Unit)
+			w, h := lab.Width(txt), lab.Height(txt)
 			for _, line := range isolines(u, v, im.LogZ, math.Log10(lvl)) {
 				pts := toCanvas(line)
 				if len(pts) < 2 {
 					continue
 				}
 				c.StrokeLines(isoSty, pts)
-				mid := pts[len(pts)/2]
-				c.FillText(lab, mid, fmt.Sprintf("%s %s %s", im.Name, plainNumber(lvl), im.Unit))
+				var corners []vg.Point
+				for _, f := range []float64{0.5, 0.35, 0.65, 0.2, 0.8, 0.1, 0.9} {
+					corners = append(corners, around(pts[int(f*float64(len(pts)-1))], w, h, 2)...)
+				}
+				pl.place(c, lab, txt, corners, true)
 			}
 		}
 	}
-	if k, a := cm.Combo.Recommended, cm.Combo.Axis; !math.IsNaN(k) && !math.IsNaN(a) {
-		pt := vg.Point{X: trX(k), Y: trY(a)}
-		c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: 5, Shape: draw.CircleGlyph{}}, pt)
-		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: 3.5, Shape: draw.CircleGlyph{}}, pt)
+	if rec.X > -1e9 {
+		c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: 5, Shape: draw.CircleGlyph{}}, rec)
+		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: 3.5, Shape: draw.CircleGlyph{}}, rec)
 	}
 }
 

@@ -116,7 +116,8 @@ func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
 		}
 		p.Y.Tick.Marker = moneyTicks{}
 	}
-	shade := &windowPlotter{window: cs.Window}
+	pl := &labelPlacer{}
+	shade := &windowPlotter{window: cs.Window, pl: pl}
 	p.Add(shade)
 	var in, out []plotter.XYs
 	var cur1 plotter.XYs
@@ -164,7 +165,7 @@ func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
 			firstIn = l
 		}
 	}
-	marks := &costMarks{series: cs, currency: cur}
+	marks := &costMarks{series: cs, currency: cur, pl: pl}
 	p.Add(marks)
 	var legend []legendEntry
 	if firstIn != nil {
@@ -181,8 +182,46 @@ func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
 		legend = append(legend, legendEntry{"cheapest feasible scale", glyphThumb{draw.RingGlyph{}}})
 	}
 	area := inset(dc)
-	p.Draw(draw.Crop(area, 0, 0, legendRowH, 0))
-	drawLegendRow(draw.Crop(area, 0, 0, 0, legendRowH-area.Size().Y), legend)
+	rows := legendRows(legend, area.Size().X)
+	h := vg.Length(len(rows)) * legendRowH
+	p.Draw(draw.Crop(area, 0, 0, h, 0))
+	for i, row := range rows {
+		top := h - vg.Length(i)*legendRowH
+		drawLegendRow(draw.Crop(area, 0, 0, top-legendRowH, top-area.Size().Y), row)
+	}
+}
+
+// Legend row geometry.
+const legendThumbW, legendThumbH, legendGap = vg.Length(22), vg.Length(8), vg.Length(16)
+
+// legendWidth is the width of a row of legend entries.
+func legendWidth(entries []legendEntry) vg.Length {
+	sty := textStyle(8.5, inkColor)
+	total := vg.Length(0)
+	for i, e := range entries {
+		if i > 0 {
+			total += legendGap
+		}
+		total += legendThumbW + 4 + sty.Width(e.text)
+	}
+	return total
+}
+
+// legendRows splits legend entries into rows no wider than w.
+func legendRows(entries []legendEntry, w vg.Length) [][]legendEntry {
+	var rows [][]legendEntry
+	var cur []legendEntry
+	for _, e := range entries {
+		if len(cur) > 0 && legendWidth(append(append([]legendEntry(nil), cur...), e)) > w {
+			rows = append(rows, cur)
+			cur = nil
+		}
+		cur = append(cur, e)
+	}
+	if len(cur) > 0 {
+		rows = append(rows, cur)
+	}
+	return rows
 }
 
 type legendEntry struct {
@@ -195,31 +234,27 @@ const legendRowH = vg.Length(20)
 // drawLegendRow draws legend entries side by side, centred in c.
 func drawLegendRow(c draw.Canvas, entries []legendEntry) {
 	sty := textStyle(8.5, inkColor)
-	const thumbW, thumbH, gap = vg.Length(22), vg.Length(8), vg.Length(16)
-	total := vg.Length(0)
-	for i, e := range entries {
-		if i > 0 {
-			total += gap
-		}
-		total += thumbW + 4 + sty.Width(e.text)
-	}
+	total := legendWidth(entries)
 	x := (c.Min.X+c.Max.X)/2 - total/2
 	y := (c.Min.Y + c.Max.Y) / 2
 	for _, e := range entries {
 		tc := c
-		tc.Rectangle = vg.Rectangle{Min: vg.Point{X: x, Y: y - thumbH/2}, Max: vg.Point{X: x + thumbW, Y: y + thumbH/2}}
+		tc.Rectangle = vg.Rectangle{Min: vg.Point{X: x, Y: y - legendThumbH/2}, Max: vg.Point{X: x + legendThumbW, Y: y + legendThumbH/2}}
 		e.thumb.Thumbnail(&tc)
-		x += thumbW + 4
+		x += legendThumbW + 4
 		s := sty
 		s.YAlign = draw.YCenter
 		c.FillText(s, vg.Point{X: x, Y: y}, e.text)
-		x += sty.Width(e.text) + gap
+		x += sty.Width(e.text) + legendGap
 	}
 }
 
 // windowPlotter shades the window over the whole height of the plot and
 // names the limit at each edge.
-type windowPlotter struct{ window sweep.Window }
+type windowPlotter struct {
+	window sweep.Window
+	pl     *labelPlacer // shared with the cost marks
+}
 
 func (w *windowPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 	trX, _ := plt.Transforms(&c)
@@ -233,7 +268,12 @@ func (w *windowPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 		c.StrokeLine2(edge, trX(iv.Lo), c.Min.Y, trX(iv.Lo), c.Max.Y)
 		c.StrokeLine2(edge, trX(iv.Hi), c.Min.Y, trX(iv.Hi), c.Max.Y)
 	}
-	lab := edgeLabeller{c: c, sty: textStyle(8, inkColor)}
+	w.pl.area = c.Rectangle
+	for _, iv := range w.window {
+		w.pl.avoidVertical(trX(iv.Lo))
+		w.pl.avoidVertical(trX(iv.Hi))
+	}
+	lab := edgeLabeller{c: c, sty: textStyle(8, inkColor), pl: w.pl}
 	lab.labelEdges(w.window, trX, c.Max.Y-5-lab.sty.Height("M"))
 }
 
@@ -245,6 +285,7 @@ func (w *windowPlotter) Thumbnail(c *draw.Canvas) {
 type costMarks struct {
 	series   *CostSeries
 	currency string
+	pl       *labelPlacer // shared with the window's edge labels
 }
 
 func (m *costMarks) hasRecommended() bool {
@@ -262,24 +303,32 @@ func (m *costMarks) Plot(c draw.Canvas, plt *plot.Plot) {
 	trX, trY := plt.Transforms(&c)
 	co := m.series.Combo
 	sty := textStyle(8, inkColor)
+	glyphs := map[string]vg.Point{}
+	if m.hasRecommended() {
+		glyphs["recommended"] = vg.Point{X: trX(co.Recommended), Y: trY(co.Cost)}
+	}
+	if m.hasCheapest() {
+		glyphs["cheapest"] = vg.Point{X: trX(co.Cheapest), Y: trY(co.CheapestCost)}
+	}
+	for _, pt := range glyphs {
+		m.pl.avoid(vg.Rectangle{Min: vg.Point{X: pt.X - 5, Y: pt.Y - 5}, Max: vg.Point{X: pt.X + 5, Y: pt.Y + 5}})
+	}
 	mark := func(k, cost float64, g draw.GlyphDrawer, name string, right, above bool) {
-		pt := vg.Point{X: trX(k), Y: trY(cost)}
+		pt := glyphs[name]
 		c.DrawGlyph(draw.GlyphStyle{Color: inkColor, Radius: 4.5, Shape: g}, pt)
-		txt := fmt.Sprintf("%s %s: %s", name, sweep.Scale(k), Money(cost, m.currency))
+		txt := fmt.Sprintf("%s %s: %s", name, sweep.Scale(k), HumanMoney(cost, m.currency))
 		w, h := sty.Width(txt), sty.Height(txt)
-		at := vg.Point{X: pt.X + 7, Y: pt.Y + 6}
-		if !right {
-			at.X = pt.X - 7 - w
+		// Candidates pointing into the plot first, on the preferred side;
+		// none may cross a window edge or another label.
+		var corners []vg.Point
+		for _, at := range around(pt, w, h, 7) {
+			if (at.X > pt.X) == right && (at.Y > pt.Y) == above {
+				corners = append(corners, at)
+			}
 		}
-		if !above {
-			at.Y = pt.Y - 8 - h
-		}
-		// A veil behind the text keeps it legible over lines and shading.
-		c.FillPolygon(color.NRGBA{0xFF, 0xFF, 0xFF, 0xD0}, rectPoints(vg.Rectangle{
-			Min: vg.Point{X: at.X - 2, Y: at.Y - 2}, Max: vg.Point{X: at.X + w + 2, Y: at.Y + h + 1}}))
-		s := sty
-		s.XAlign, s.YAlign = draw.XLeft, draw.YBottom
-		c.FillText(s, vg.Point{X: at.X, Y: at.Y + sty.FontExtents().Descent}, txt)
+		corners = append(corners, around(pt, w, h, 7)...)
+		// A veil behind the text keeps it legible over the curve.
+		m.pl.place(c, sty, txt, corners, true)
 	}
 	// Labels point into the plot: rightwards from the left half.
 	mid := (c.Min.X + c.Max.X) / 2

@@ -76,15 +76,21 @@ func drawRequirement(dc draw.Canvas, res *sweep.Result, rs RequirementSeries) {
 	if len(rs.Curves) > 0 && !rs.Curves[0].AtLeast {
 		dir = "at most"
 	}
-	title := fmt.Sprintf("%s: %s, %s the model needs (limit %q)\nsolid: needed at each scale; dashed: what each facility has", res.Name, rs.Strategy, rs.Capability, rs.Limit)
+	title := fmt.Sprintf("%s: %s, %s the model needs (limit %q)\nsolid: needed at each scale; dashed: what each facility has", res.Name, rs.Strategy, Label(rs.Capability), rs.Limit)
 	p := newPlot(title, rs.X[0], rs.X[len(rs.X)-1])
-	p.Y.Label.Text = fmt.Sprintf("%s needed (%s) [%s]", rs.Capability, dir, rs.Unit)
+	// A centrifuge's capacity is a payload mass times the g-level: shown
+	// in g·t as the trade states it, not in kg.
+	unit, scale := rs.Unit, 1.0
+	if rs.Capability == "capacity" && rs.Unit == "kg" {
+		unit, scale = "g·t", 1e-3
+	}
+	p.Y.Label.Text = fmt.Sprintf("%s needed (%s) [%s]", Label(rs.Capability), dir, unit)
 	p.Y.Scale = plot.LogScale{}
 	p.Y.Tick.Marker = logTicks{format: plainNumber}
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, c := range rs.Curves {
 		for _, v := range append(append([]float64(nil), c.Needed...), c.Have) {
-			if v > 0 && !math.IsInf(v, 0) {
+			if v *= scale; v > 0 && !math.IsInf(v, 0) {
 				lo, hi = math.Min(lo, v), math.Max(hi, v)
 			}
 		}
@@ -97,7 +103,7 @@ func drawRequirement(dc draw.Canvas, res *sweep.Result, rs RequirementSeries) {
 		clr := requirementColors[i%len(requirementColors)]
 		var xy plotter.XYs
 		for k, v := range c.Needed {
-			if v > 0 && !math.IsInf(v, 0) {
+			if v *= scale; v > 0 && !math.IsInf(v, 0) {
 				xy = append(xy, plotter.XY{X: rs.X[k], Y: v})
 			}
 		}
@@ -105,11 +111,19 @@ func drawRequirement(dc draw.Canvas, res *sweep.Result, rs RequirementSeries) {
 			l, err := plotter.NewLine(xy)
 			if err == nil {
 				l.LineStyle = draw.LineStyle{Color: clr, Width: 1.6}
+				label := clip(c.Label, 60)
+				// A curve identical to an earlier one is drawn in dashes
+				// over it, so both colours show, and the legend says so.
+				if j := sameCurve(rs.Curves[:i], c.Needed); j >= 0 {
+					l.LineStyle.Dashes = []vg.Length{6, 6}
+					l.LineStyle.Width = 2.2
+					label = clip(c.Label, 40) + " (same as " + clip(rs.Curves[j].Label, 30) + ")"
+				}
 				p.Add(l)
-				p.Legend.Add(clip(c.Label, 60), l)
+				p.Legend.Add(label, l)
 			}
 		}
-		h, err := plotter.NewLine(plotter.XYs{{X: rs.X[0], Y: c.Have}, {X: rs.X[len(rs.X)-1], Y: c.Have}})
+		h, err := plotter.NewLine(plotter.XYs{{X: rs.X[0], Y: c.Have * scale}, {X: rs.X[len(rs.X)-1], Y: c.Have * scale}})
 		if err == nil {
 			h.LineStyle = draw.LineStyle{Color: clr, Width: 1.1, Dashes: []vg.Length{5, 3}}
 			p.Add(h)
@@ -117,4 +131,33 @@ func drawRequirement(dc draw.Canvas, res *sweep.Result, rs RequirementSeries) {
 	}
 	p.Legend.Top = true
 	p.Draw(inset(dc))
+}
+
+// sameCurve is the index of the first curve whose needs equal needed, or
+// -1.
+func sameCurve(curves []RequirementCurve, needed []float64) int {
+	for j, c := range curves {
+		if len(c.Needed) != len(needed) {
+			continue
+		}
+		same := true
+		for k, v := range c.Needed {
+			w := needed[k]
+			if math.IsNaN(v) || math.IsNaN(w) {
+				if math.IsNaN(v) != math.IsNaN(w) {
+					same = false
+					break
+				}
+				continue
+			}
+			if v != w && math.Abs(v-w) > 1e-12*math.Abs(v) {
+				same = false
+				break
+			}
+		}
+		if same {
+			return j
+		}
+	}
+	return -1
 }

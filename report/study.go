@@ -88,11 +88,11 @@ func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, form
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	memo := filepath.Join(dir, base+".memo.md")
-	if err := WriteMemo(memo, res); err != nil {
+	memos, err := WriteMemos(filepath.Join(dir, base+".memo.md"), res, maps)
+	if err != nil {
 		return nil, err
 	}
-	return append([]string{wb, memo}, files...), nil
+	return append(append([]string{wb}, memos...), files...), nil
 }
 
 // WriteStudy writes every output of a study into dir and returns the paths

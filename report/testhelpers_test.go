@@ -142,10 +142,9 @@ func wbColumns(t *testing.T, sheet string, header []string, prefixes ...string) 
 	return cols
 }
 
-// wbCheckSig checks that a cell holds x to four significant figures: the
-// written number is within half a unit of the fourth figure of x and has
-// no more than four figures itself. A NaN or infinite x must leave the
-// cell empty.
+// wbCheckSig checks that a cell holds x at full precision (the workbook
+// stores values unrounded and shows them to four significant figures with
+// a display format). A NaN or infinite x must leave the cell empty.
 func wbCheckSig(t *testing.T, where, cell string, x float64) {
 	t.Helper()
 	if math.IsNaN(x) || math.IsInf(x, 0) {
@@ -156,22 +155,11 @@ func wbCheckSig(t *testing.T, where, cell string, x float64) {
 	}
 	v, err := strconv.ParseFloat(cell, 64)
 	if err != nil {
-		t.Errorf("%s: got %q, want the number %.4g", where, cell, x)
+		t.Errorf("%s: got %q, want the number %v", where, cell, x)
 		return
 	}
-	if x == 0 {
-		if v != 0 {
-			t.Errorf("%s: got %v, want 0", where, v)
-		}
-		return
-	}
-	unit := math.Pow(10, math.Floor(math.Log10(math.Abs(x)))-3)
-	if math.Abs(v-x) > unit/2*(1+1e-9) {
-		t.Errorf("%s: got %v, want %.4g (from %v, to four significant figures)", where, v, x, x)
-	}
-	four, _ := strconv.ParseFloat(strconv.FormatFloat(v, 'g', 4, 64), 64)
-	if math.Abs(four-v) > 1e-12*math.Abs(v) {
-		t.Errorf("%s: got %v, which has more than four significant figures", where, cell)
+	if math.Abs(v-x) > 1e-14*math.Abs(x) {
+		t.Errorf("%s: got %v, want %v at full precision", where, v, x)
 	}
 }
 

@@ -32,6 +32,8 @@ type sheetWriter struct {
 	bold   int
 	name   string
 	cols   int
+	// formats maps a display format to its style (see sigCell).
+	formats map[string]int
 }
 
 func newSheet(f *excelize.File, name string, header []string, widths []float64, bold int) (*sheetWriter, error) {
@@ -39,6 +41,9 @@ func newSheet(f *excelize.File, name string, header []string, widths []float64, 
 		if _, err := f.NewSheet(name); err != nil {
 			return nil, err
 		}
+	}
+	if err := printSetup(f, name, len(header) > 0); err != nil {
+		return nil, err
 	}
 	sw, err := f.NewStreamWriter(name)
 	if err != nil {
@@ -74,6 +79,13 @@ func (s *sheetWriter) add(cells ...any) error {
 		if f, ok := c.(float64); ok && (math.IsNaN(f) || math.IsInf(f, 0)) {
 			cells[i] = ""
 		}
+		if x, ok := c.(sigNum); ok {
+			v, err := s.sigCell(x)
+			if err != nil {
+				return err
+			}
+			cells[i] = v
+		}
 	}
 	return s.sw.SetRow(cell, cells)
 }
@@ -88,6 +100,9 @@ func (s *sheetWriter) close(filter bool) error {
 			StyleName: "TableStyleLight1", ShowRowStripes: &off}); err != nil {
 			return err
 		}
+	}
+	if err := printPages(s.f, s.name, s.row); err != nil {
+		return err
 	}
 	return s.sw.Flush()
 }
@@ -192,6 +207,12 @@ func sortedZip(w io.Writer, b []byte) error {
 			}
 			continue
 		}
+		if sheetPartRE.MatchString(f.Name) {
+			if err := copyFixedSheet(zw, f); err != nil {
+				return err
+			}
+			continue
+		}
 		if err := zw.Copy(f); err != nil {
 			return err
 		}
@@ -203,16 +224,11 @@ var defaultType = regexp.MustCompile(`<Default [^>]*>(</Default>)?`)
 
 // copySortedTypes writes the content-types part with its Default entries
 // sorted: the spreadsheet library lists image types in map order.
-func copySortedTypes(zw *zip.Writer, f *zip.File) error {
-	r, err := f.Open()
-	if err != nil {
-		return err
-	}
-	b, err := io.ReadAll(r)
-	r.Close()
-	if err != nil {
-		return err
-	}
+func copySortedTypes(zw *zip.Writer, f *zip.File) error { return rewriteEntry(zw, f, sortDefaults) }
+
+// sortDefaults sorts the contiguous Default entries of a content-types
+// part.
+func sortDefaults(b []byte) []byte {
 	locs := defaultType.FindAllIndex(b, -1)
 	if len(locs) > 1 {
 		parts := make([]string, len(locs))
@@ -232,13 +248,7 @@ func copySortedTypes(zw *zip.Writer, f *zip.File) error {
 			b = out
 		}
 	}
-	hdr := f.FileHeader
-	w, err := zw.CreateHeader(&zip.FileHeader{Name: hdr.Name, Method: hdr.Method, Modified: hdr.Modified})
-	if err != nil {
-		return err
-	}
-	_, err = w.Write(b)
-	return err
+	return b
 }
 
 // zipOrder keeps the content-types part first, as spreadsheet programs
@@ -275,21 +285,29 @@ func writeSummary(f *excelize.File, res *sweep.Result, bold, title int) error {
 		excelize.Cell{StyleID: bold, Value: "model length [m]"}, excelize.Cell{StyleID: bold, Value: "cost [" + st.Currency + "]"},
 		excelize.Cell{StyleID: bold, Value: "best candidate / reason"},
 		excelize.Cell{StyleID: bold, Value: fmt.Sprintf("robust window, P ≥ %.0f %% (1:x)", 100*st.RobustLevel)},
+		excelize.Cell{StyleID: bold, Value: "map sheet"},
 		excelize.Cell{StyleID: bold, Value: "rank"}, excelize.Cell{StyleID: bold, Value: "why it ranks there"},
 		excelize.Cell{StyleID: bold, Value: "assumptions"}})
-	for _, sr := range res.Strategies {
+	for i, sr := range res.Strategies {
 		c := sr.Best
 		rank, why := rankText(res, sr), ""
 		if e := res.RankOf(sr.Name); e != nil {
 			why = e.Reason
 		}
 		if c == nil {
-			rows = append(rows, []any{sr.Name, sr.Technique, "none", "", "", "", "", "", firstFailing(sr), "", rank, why})
+			rows = append(rows, []any{sr.Name, sr.Technique, "none", "", "", "", "", "", firstFailing(sr), "", mapSheetName(i, sr.Name), rank, why})
 			continue
 		}
 		large, small := Edges(c.Window)
 		rows = append(rows, []any{sr.Name, sr.Technique, WindowText(c.Window), large, small, sweep.Scale(c.Recommended),
-			sig(c.ModelLength), money(c.Cost), Candidate(c), RobustText(c), rank, why, strings.Join(AssumptionLines(res, sr), "; ")})
+			sig(c.ModelLength), money(c.Cost), Candidate(c), RobustText(c), mapSheetName(i, sr.Name), rank, why, strings.Join(AssumptionLines(res, sr), "; ")})
+	}
+	// The map sheet names link to their sheets.
+	first := len(rows) - len(res.Strategies) + 1
+	for i, sr := range res.Strategies {
+		if err := sheetLink(f, "Summary", 11, first+i, mapSheetName(i, sr.Name)); err != nil {
+			return err
+		}
 	}
 	rows = append(rows, summaryVerdicts(res, bold)...)
 	for _, r := range rows {
@@ -307,16 +325,13 @@ func orDash(s string) string {
 	return s
 }
 
-// sig rounds to four significant figures for display cells.
+// sig is a number stored at full precision and shown to four significant
+// figures; NaN and infinities leave the cell empty.
 func sig(x float64) any {
 	if math.IsNaN(x) || math.IsInf(x, 0) {
 		return ""
 	}
-	if x == 0 {
-		return 0.0
-	}
-	d := math.Pow(10, 3-math.Floor(math.Log10(math.Abs(x))))
-	return math.Round(x*d) / d
+	return sigNum(x)
 }
 
 func money(x float64) any {
@@ -435,10 +450,7 @@ func mapSheetName(i int, name string) string {
 		return r
 	}, name)
 	prefix := fmt.Sprintf("Map %d ", i+1)
-	if r := []rune(clean); len(r) > 31-len(prefix) {
-		clean = string(r[:31-len(prefix)])
-	}
-	return prefix + clean
+	return prefix + shortName(clean, 31-len(prefix))
 }
 
 // writeMap writes the margin of every combination of a strategy at every

@@ -66,9 +66,16 @@ func loBinary(t *testing.T) string {
 // LibreOffice run with a private profile, and returns what it printed.
 func loConvert(t *testing.T, soffice, outDir string, books []string) string {
 	t.Helper()
+	return loConvertTo(t, soffice, outDir, loCSVFilter, books)
+}
+
+// loConvertTo converts files with a LibreOffice filter ("pdf", a CSV
+// filter), in one run with a private profile, and returns what it printed.
+func loConvertTo(t *testing.T, soffice, outDir, filter string, books []string) string {
+	t.Helper()
 	profile := url.URL{Scheme: "file", Path: filepath.ToSlash(filepath.Join(t.TempDir(), "lo-profile"))}
 	args := []string{"-env:UserInstallation=" + profile.String(), "--headless", "--norestore", "--nolockcheck",
-		"--convert-to", loCSVFilter, "--outdir", outDir}
+		"--convert-to", filter, "--outdir", outDir}
 	args = append(args, books...)
 	ctx, cancel := context.WithTimeout(context.Background(), 120*time.Second)
 	defer cancel()

@@ -19,6 +19,9 @@ type Job struct {
 	// the largest sweep (grid points × combinations) the study may run
 	// (scaleplan run --max-points). It is at most MaxPointsLimit.
 	MaxPoints int
+	// Done, when set, is called with the job's outcome as soon as it
+	// finishes (from the job's goroutine): a progress display.
+	Done func(Outcome)
 }
 
 // MaxPointsLimit is the largest max_points a study or a job may set.
@@ -58,6 +61,9 @@ func RunBatch(ctx context.Context, jobs []Job, cat *FacilityCatalog) []Outcome {
 			sem <- struct{}{}
 			defer func() { <-sem }()
 			out[i] = runJob(ctx, j, cat)
+			if j.Done != nil {
+				j.Done(out[i])
+			}
 		}()
 	}
 	wg.Wait()

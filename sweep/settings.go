@@ -30,10 +30,11 @@ type Settings struct {
 	ReferenceSpeed      string // prototype item giving the test speed
 	MaxPoints           int    // refuse sweeps larger than this
 	InputsDate          string
-	Samples             int     // draws of the uncertain inputs (0: none)
-	Seed                uint64  // of the draws, for reproducible results
-	RobustLevel         float64 // probability a robust scale must reach
-	Unballasted         string  // candidates whose mass cannot be ballasted, comma separated
+	Samples             int      // draws of the uncertain inputs (0: none)
+	Seed                uint64   // of the draws, for reproducible results
+	RobustLevel         float64  // probability a robust scale must reach
+	Unballasted         string   // candidates whose mass cannot be ballasted, comma separated
+	Predict             []string // quantities the memo gives prediction rules for, besides the measured ones
 	// WeakLaws may be relaxed at no cost, GoverningLaws never without
 	// counting against a strategy; MismatchThreshold is the mismatch
 	// beyond which a relaxed law is a scale effect (see rank.go).
@@ -52,6 +53,7 @@ var settingDefaults = map[string]string{
 	"reference_length": "", "reference_speed": "", "max_points": "100000000", "inputs_date": "",
 	"samples": "0", "seed": "1", "robust_level": "0.95", "unballasted": "",
 	"weak_laws": "", "governing_laws": "", "mismatch_threshold": "10",
+	"predict": "",
 }
 
 var settingRequired = []string{"scale_from", "scale_to"}
@@ -175,6 +177,9 @@ func parseSettings(s *Study, ps *Problems) Settings {
 	st.MaxPoints = integer("max_points", 1, math.MaxInt32)
 	st.InputsDate = text("inputs_date")
 	st.Unballasted = text("unballasted")
+	if c, ok := get("predict"); ok {
+		st.Predict = parsePredict(c.Value, c.Cell, ps)
+	}
 	st.Samples = integer("samples", 0, 10_000_000)
 	st.Seed = uint64(integer("seed", 0, math.MaxInt32))
 	st.RobustLevel = number("robust_level")

@@ -122,7 +122,7 @@ func strayCSVFiles(names []string, s *Study, ps *Problems) {
 // strayWorksheets does the same for the worksheets of a workbook. The
 // Instructions and Lists sheets of the template are part of it.
 func strayWorksheets(list []string, s *Study, ps *Problems) {
-	known := append(append([]string(nil), SheetNames...), instrSheet, listsSheet)
+	known := append(append([]string(nil), SheetNames...), instrSheet, listsSheet, choicesSheet)
 	for _, n := range list {
 		if !slices.ContainsFunc(known, func(f string) bool { return strings.EqualFold(f, n) }) {
 			s.Warnings.Add(Cell{}, "the worksheet %q is not a sheet of a study and is not read%s", n, sheetSuggestion(n, SheetNames))

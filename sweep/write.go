@@ -173,6 +173,8 @@ func WriteCSV(dir string, s *Study) error {
 // Lists are the names the drop-down lists of a written workbook offer.
 type Lists struct {
 	Laws, Quantities, Entries, FacilityTypes, Techniques []string
+	// Capabilities lists each facility type's capabilities.
+	Capabilities map[string][]string
 }
 
 // Fixed document properties, so that the same study gives the same bytes.
@@ -253,6 +255,12 @@ func buildWorkbook(f *excelize.File, s *Study, lists Lists) error {
 		}
 	}
 	if err := writeLists(f, s, lists, bold); err != nil {
+		return err
+	}
+	if err := writeChoices(f, s, lists); err != nil {
+		return err
+	}
+	if err := finishLayout(f); err != nil {
 		return err
 	}
 	f.SetActiveSheet(0)

@@ -275,7 +275,7 @@ func TestXLSXLayout(t *testing.T) {
 		t.Fatal(err)
 	}
 	defer f.Close()
-	wantSheets := append(append([]string{"Instructions"}, SheetNames...), "Lists")
+	wantSheets := append(append([]string{"Instructions"}, SheetNames...), "Lists", choicesSheet)
 	if got := f.GetSheetList(); !reflect.DeepEqual(got, wantSheets) {
 		t.Errorf("sheets %v, want %v", got, wantSheets)
 	}

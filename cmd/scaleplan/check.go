@@ -130,6 +130,7 @@ func writeCheckText(stdout, stderr io.Writer, checks []checkResult) {
 	}
 }
 
+// plural picks the word for a count (used by check and the progress line).
 func plural(n int, one, many string) string {
 	if n == 1 {
 		return one

@@ -25,9 +25,12 @@ Commands:
 	rules      solve the scale laws of one strategy
 	groups     Buckingham pi groups of a list of variables
 	materials  the library of model materials and media
-	version    print the version
+	version    print the version recorded in the build (also: scaleplan --version)
+	completion print a bash completion script: source <(scaleplan completion)
 
 Every command takes --help. Commands whose output is data take --json.
+In a terminal, run shows its progress on stderr (silent when stderr is a
+file or a pipe).
 
 Exit status: 0 on success (also when a request turns out infeasible: that
 is a result), 1 on bad input (an unknown name, a malformed value, an

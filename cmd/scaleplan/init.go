@@ -7,7 +7,6 @@ import (
 
 	"github.com/urfave/cli/v2"
 
-	"scaleplan/feasibility"
 	"scaleplan/materials"
 	"scaleplan/sweep"
 )
@@ -86,10 +85,5 @@ func templateLists() (sweep.Lists, error) {
 	if err != nil {
 		return sweep.Lists{}, err
 	}
-	var entries []string
-	for _, e := range lib.Entries() {
-		entries = append(entries, e.Name)
-	}
-	return sweep.Lists{Laws: feasibility.LawNames(), Quantities: feasibility.QuantityNames(), Entries: entries,
-		FacilityTypes: cat.Types(), Techniques: sweep.Techniques}, nil
+	return sweep.DefaultLists(lib, cat), nil
 }

@@ -69,8 +69,17 @@ func newApp(stdout, stderr io.Writer) *cli.App {
 		},
 		CommandNotFound: func(c *cli.Context, name string) {},
 		Commands:        commands(),
+		// Shell completion: scaleplan completion prints the bash script.
+		EnableBashCompletion: true,
+		Flags: []cli.Flag{
+			&cli.BoolFlag{Name: "version", Usage: "print the version recorded in the build"},
+		},
 	}
 	app.Action = func(c *cli.Context) error {
+		if c.Bool("version") {
+			fmt.Fprintln(c.App.Writer, versionLine())
+			return nil
+		}
 		if c.NArg() > 0 {
 			return usagef("unknown command %q (see scaleplan --help)", c.Args().First())
 		}
@@ -92,6 +101,7 @@ func commands() []*cli.Command {
 		materialsCommand(),
 		groupsCommand(),
 		versionCommand(),
+		completionCommand(),
 	}
 }
 
@@ -99,7 +109,8 @@ func commands() []*cli.Command {
 // "scaleplan groups F=N V=m/s --json" works as well as the flags-first
 // order the command-line library expects. "--" ends the flags.
 func flagsFirst(app *cli.App, args []string) ([]string, error) {
-	if len(args) < 3 {
+	if len(args) < 3 || args[len(args)-1] == completionFlag {
+		// The completion request must stay the last argument.
 		return args, nil
 	}
 	var cmd *cli.Command

@@ -128,7 +128,7 @@ func TestFormulaTextStaysText(t *testing.T) {
 	files := hFiles(t, out)
 	for n := range files {
 		switch filepath.Ext(n) {
-		case ".xlsx", ".md", ".png", ".svg", ".pdf": // workbooks, memos, maps
+		case ".xlsx", ".md", ".html", ".png", ".svg", ".pdf": // workbooks, memos (Markdown; HTML with every text escaped), maps
 		default:
 			t.Errorf("run wrote %s: only workbooks, memos and maps are expected (a CSV would need its own guard)", n)
 		}

@@ -71,6 +71,11 @@ func runCommand() *cli.Command {
 			// written after it (WriteStudy leaves no partial file).
 			ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
 			defer stop()
+			prog := newProgress(c.App.ErrWriter, len(jobs))
+			defer prog.clear()
+			for i := range jobs {
+				jobs[i].Done = func(o sweep.Outcome) { prog.swept(o.Name) }
+			}
 			outcomes := sweep.RunBatch(pauseAt(ctx, "batch", c.App.ErrWriter), jobs, cat)
 			if ctx.Err() != nil {
 				return interrupted(0, len(outcomes))
@@ -99,7 +104,9 @@ func runCommand() *cli.Command {
 					}
 					made = true
 				}
+				prog.writing(written+1, succeeded(outcomes), o.Name)
 				files, err := report.WriteStudy(wctx, out, o.Result, format)
+				prog.clear()
 				if err != nil {
 					if ctx.Err() != nil {
 						return interrupted(written, len(outcomes))
@@ -116,6 +123,7 @@ func runCommand() *cli.Command {
 					fmt.Fprintf(c.App.Writer, "written: %s\n\n", strings.Join(files, ", "))
 				}
 			}
+			prog.clear()
 			if c.Bool("json") {
 				if err := report.WriteRunJSON(c.App.Writer, data); err != nil {
 					return err
@@ -128,6 +136,17 @@ func runCommand() *cli.Command {
 			return nil
 		},
 	}
+}
+
+// succeeded counts the studies that ran.
+func succeeded(outcomes []sweep.Outcome) int {
+	n := 0
+	for _, o := range outcomes {
+		if o.Err == nil {
+			n++
+		}
+	}
+	return n
 }
 
 func indent(s string) string {

@@ -4,17 +4,20 @@ import (
 	"fmt"
 
 	"github.com/urfave/cli/v2"
+
+	"scaleplan/report"
 )
 
-// version is the release of this build.
-const version = "0.1.0"
+// versionLine is what both `scaleplan version` and `scaleplan --version`
+// print.
+func versionLine() string { return "scaleplan " + report.BuildVersion() }
 
 func versionCommand() *cli.Command {
 	return &cli.Command{
 		Name:  "version",
-		Usage: "print the version",
+		Usage: "print the version recorded in the build (also: scaleplan --version)",
 		Action: func(c *cli.Context) error {
-			fmt.Fprintln(c.App.Writer, "scaleplan "+version)
+			fmt.Fprintln(c.App.Writer, versionLine())
 			return nil
 		},
 	}
