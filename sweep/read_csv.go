@@ -91,6 +91,7 @@ func readCSVSheet(f io.Reader, name string, r *sheetReader) {
 	}
 	if bytes.IndexByte(head, ',') < 0 && bytes.IndexByte(head, ';') >= 0 {
 		comma = ';'
+		r.decimalComma = true // the separator of locales with a decimal comma
 	}
 	issues := quoteIssues(raw, comma)
 	cr := csv.NewReader(bytes.NewReader(raw))

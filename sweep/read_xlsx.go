@@ -46,7 +46,8 @@ func loadXLSX(p, base string) (*Study, error) {
 // Values are read with excelize's streaming row iterator, as raw cell
 // values: a number is its stored value, not its display format (so a cell
 // formatted "0.00" or as a currency still gives its full value), a formula
-// its cached value. Formulas without a cached value are found by a
+// its cached value. A number formatted as a date or a time is read as the
+// text a person typed (see cellText). Formulas without a cached value are found by a
 // streaming scan of the worksheet XML, since the iterator gives them as
 // empty cells.
 func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
@@ -157,6 +158,7 @@ func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, 
 		}
 		r.flagged[is.at] = true
 	}
+	kinds, use1904 := cellKinds(f, part, len(r.cols)), date1904(f)
 	rows, err := f.Rows(name)
 	if err != nil {
 		r.add(Cell{Sheet: r.sheet}, "cannot read the sheet: %v", err)
@@ -174,6 +176,7 @@ func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, 
 			}
 			continue
 		}
+		typedCells(cells, n, kinds, use1904)
 		if !r.row(n, cells) {
 			return
 		}

@@ -68,6 +68,9 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 		switch {
 		case of == "":
 			it, ok := p.Items[in]
+			if !ok && p.failed.has(in) {
+				continue // reported at its own row
+			}
 			if !ok {
 				ps.Add(At("Uncertainty", r.Row, "input"), "no prototype item %q%s (name a candidate or a facility in the of column for their inputs)", in, feasibility.Suggest(in, p.ItemOrder))
 				continue
