@@ -46,6 +46,9 @@ func Load(p string) (*Study, error) {
 		}
 		return nil, fmt.Errorf("study %s: %w", p, err)
 	}
+	if what := notRegular(info.Mode()); what != "" && !info.IsDir() {
+		return nil, fmt.Errorf("study %s: it is %s, not a file or folder: a study is an .xlsx workbook or a folder of .csv sheets", p, what)
+	}
 	if info.IsDir() {
 		return loadCSV(os.DirFS(p), ".", p, filepath.Base(filepath.Clean(p)))
 	}

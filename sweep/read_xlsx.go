@@ -33,7 +33,13 @@ func loadXLSX(p, base string) (*Study, error) {
 		ps.Add(Cell{Sheet: file}, "the workbook is larger than %d MiB; a study is far smaller", maxFileBytes>>20)
 		return finish(s, base, ps)
 	}
-	b, err := os.ReadFile(p)
+	b, err := readRegular(p, maxFileBytes)
+	if errors.Is(err, errTooLarge) {
+		s := newStudy(p)
+		var ps Problems
+		ps.Add(Cell{Sheet: file}, "the workbook is larger than %d MiB; a study is far smaller", maxFileBytes>>20)
+		return finish(s, base, ps)
+	}
 	if err != nil {
 		return nil, fmt.Errorf("study %s: %w", p, err)
 	}
