@@ -106,7 +106,8 @@ func isColumn(list []string, col string) bool {
 }
 
 // decimalComma matches a number written with a decimal comma.
-var decimalComma = regexp.MustCompile(`^[+-]?[0-9]*,[0-9]+([eE][+-]?[0-9]+)?\s*%?$`)
+// (or a scale 1:12,5).
+var decimalComma = regexp.MustCompile(`^([0-9]+\s*:\s*)?[+-]?[0-9]*,[0-9]+([eE][+-]?[0-9]+)?\s*%?$`)
 
 // fromDecimalComma turns 1,5 into 1.5 (other text is kept).
 func fromDecimalComma(v string) string {
@@ -293,8 +294,8 @@ func typedAsClock(v string) string {
 // timeValue reads a value typed as a duration (0:01:00, a cell formatted
 // as a time) where a time is expected: it returns the seconds as the value
 // and s as the unit. Values that are not durations are returned as given;
-// a duration with a unit of its own, or where no time is expected, is an
-// error.
+// a duration where no time is expected, or with a unit that is not a
+// time, is an error.
 func timeValue(value, unit string, want feasibility.Dimension) (string, string, error) {
 	secs, ok := clockSeconds(value)
 	if !ok {
@@ -303,7 +304,10 @@ func timeValue(value, unit string, want feasibility.Dimension) (string, string, 
 		}
 		return value, unit, nil
 	}
-	if want.Equal(feasibility.Dim(0, 0, 1, 0)) && noUnit(strings.TrimSpace(unit)) {
+	time := feasibility.Dim(0, 0, 1, 0)
+	u, uerr := feasibility.ParseUnit(unit)
+	if want.Equal(time) && (noUnit(strings.TrimSpace(unit)) || uerr == nil && u.Dim.Equal(time)) {
+		// h:mm:ss is a duration whatever time unit the row names.
 		return strconv.FormatFloat(secs, 'g', -1, 64), "s", nil
 	}
 	return value, unit, fmt.Errorf("%s", typedAsClock(value))
