@@ -199,9 +199,12 @@ func (r *sheetReader) applyHeaderUnit(n int, vals []string) bool {
 	if !ok || vals[vi] == "" {
 		return true
 	}
-	if noUnit(vals[ui]) {
+	if vals[ui] == "" {
 		vals[ui] = hu
 		return true
+	}
+	if noUnit(vals[ui]) {
+		return true // "-" or "1": this row has no unit (a count)
 	}
 	if sameUnit(vals[ui], hu) {
 		return true
