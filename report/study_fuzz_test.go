@@ -44,16 +44,22 @@ func FuzzStudy(f *testing.F) {
 	}
 	seed(nil)
 	seed(func(m map[string]string) { m["Study"] = strings.Replace(m["Study"], "scale_to,60", "scale_to,1:25", 1) })
-	seed(func(m map[string]string) { m["Study"] = strings.Replace(m["Study"], "tolerance,0.1", "tolerance,10%", 1) })
+	seed(func(m map[string]string) {
+		m["Study"] = strings.Replace(m["Study"], "tolerance,0.1", "tolerance,10%", 1)
+	})
 	seed(func(m map[string]string) {
 		m["Prototype"] = strings.ReplaceAll(strings.Replace(m["Prototype"], "value,", "value [ft],", 1), ",m,", ",,")
 	})
-	seed(func(m map[string]string) { m["Prototype"] = strings.ReplaceAll(strings.ReplaceAll(m["Prototype"], ",", ";"), "4.8", "4,8") })
+	seed(func(m map[string]string) {
+		m["Prototype"] = strings.ReplaceAll(strings.ReplaceAll(m["Prototype"], ",", ";"), "4.8", "4,8")
+	})
 	seed(func(m map[string]string) {
 		m["Facilities"] = strings.Replace(m["Facilities"], "Estuary tank", "Estuary\u00a0tank", 1)
 	})
 	seed(func(m map[string]string) { m["Limits"] += "all,gap,hull_length / (beam - beam) >= 1,test\n" })
-	seed(func(m map[string]string) { m["Study"] += "axis,tank_depth,,\naxis_from,2,m,\naxis_to,6,m,\naxis_points,3,,\n" })
+	seed(func(m map[string]string) {
+		m["Study"] += "axis,tank_depth,,\naxis_from,2,m,\naxis_to,6,m,\naxis_points,3,,\n"
+	})
 
 	cat, err := sweep.NewFacilityCatalog()
 	if err != nil {
