@@ -82,7 +82,7 @@ func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, form
 		return nil, err
 	}
 	wb := filepath.Join(dir, base+".xlsx")
-	if err := WriteWorkbook(wb, res, maps...); err != nil {
+	if err := WriteWorkbookContext(ctx, wb, res, maps...); err != nil {
 		return nil, err
 	}
 	if err := ctx.Err(); err != nil {

@@ -1,0 +1,42 @@
+package report_test
+
+import (
+	"context"
+	"errors"
+	"os"
+	"path/filepath"
+	"testing"
+
+	"scaleplan/report"
+)
+
+// TestWriteWorkbookCancelled: the workbook checks for an interrupt
+// between its sheets and along its map sheets; cancelled at any of its
+// checks, it stops with the context's error and leaves no file. The
+// cancellation is driven by the context (countdownCtx), not a clock.
+func TestWriteWorkbookCancelled(t *testing.T) {
+	res := rbRun(t, "tug", "")
+	stopped := 0
+	for n := int64(0); n < 12; n++ {
+		dir := t.TempDir()
+		p := filepath.Join(dir, "tug.xlsx")
+		ctx := &countdownCtx{Context: context.Background()}
+		ctx.left.Store(n)
+		err := report.WriteWorkbookContext(ctx, p, res)
+		if err == nil {
+			continue
+		}
+		if !errors.Is(err, context.Canceled) {
+			t.Fatalf("after %d checks: %v", n, err)
+		}
+		stopped++
+		if es, _ := os.ReadDir(dir); len(es) != 0 {
+			t.Errorf("cancelled after %d checks: the folder holds %d files", n, len(es))
+		}
+	}
+	// Three map sheets and the checks between sheets: at least four
+	// places where an interrupt stops the workbook.
+	if stopped < 4 {
+		t.Errorf("the workbook stopped at %d checks, want at least 4", stopped)
+	}
+}
