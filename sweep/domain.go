@@ -27,13 +27,17 @@ const (
 // own, that limit is the budget.
 const DefaultMemoryBudget = 768 << 20
 
-// bytesPerPoint is what the sweep and its outputs hold per grid point and
+// bytesPerPoint is what the sweep and its outputs hold per kL point and
 // combination (margins, limiting limits, costs, requirements, the maps);
-// bytesPerGridPoint what they hold per grid point whatever the number of
+// bytesPerAxisPoint what they hold per kL point, axis value and
+// combination (the margins at every axis value, for the contour map);
+// bytesPerGridPoint what they hold per kL point whatever the number of
 // combinations (the grid, its labels, the workbook's map rows). Measured
-// with BenchmarkSyntheticPeak (sweep/domain_test.go) and rounded up.
+// as the peak memory of `scaleplan run` on synthetic studies (see
+// DEVELOPERS.md, "Inputs as people type them") and rounded up.
 const (
 	bytesPerPoint     = 160
+	bytesPerAxisPoint = 16
 	bytesPerGridPoint = 96
 )
 
@@ -112,7 +116,11 @@ func (p *Plan) memoryNeed() (need float64, points, combos int) {
 			combos += max(1, len(c.Media)) * max(1, len(c.Materials)) * max(1, len(c.Facilities))
 		}
 	}
-	return float64(points)*float64(combos)*bytesPerPoint + float64(st.Points)*bytesPerGridPoint, points, combos
+	perCombo := float64(st.Points) * bytesPerPoint
+	if st.Axis != "" {
+		perCombo += float64(points) * bytesPerAxisPoint
+	}
+	return float64(combos)*perCombo + float64(st.Points)*bytesPerGridPoint, points, combos
 }
 
 // checkMemory refuses a sweep that would need more memory than the soft
