@@ -8,7 +8,6 @@ import (
 	"strings"
 	"testing"
 
-	"scaleplan/materials"
 	"scaleplan/report"
 	"scaleplan/sweep"
 )
@@ -20,31 +19,7 @@ import (
 // mfRun runs the tug scenario with its first n strategies and points.
 func mfRun(t *testing.T, n int, points string) *sweep.Result {
 	t.Helper()
-	s, err := sweep.LoadScenario("tug")
-	if err != nil {
-		t.Fatal(err)
-	}
-	set := s.Settings["points"]
-	set.Value = points
-	s.Settings["points"] = set
-	s.Strategies = s.Strategies[:n]
-	lib, err := materials.Default()
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat, err := sweep.NewFacilityCatalog()
-	if err != nil {
-		t.Fatal(err)
-	}
-	plan, err := sweep.Prepare(s, lib, cat)
-	if err != nil {
-		t.Fatal(err)
-	}
-	res, err := plan.Run(context.Background())
-	if err != nil {
-		t.Fatal(err)
-	}
-	return res
+	return rbRunEdited(t, "tug", points, func(s *sweep.Study) { s.Strategies = s.Strategies[:n] })
 }
 
 // mfSnapshot reads every regular file of a folder.

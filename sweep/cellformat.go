@@ -1,10 +1,7 @@
 package sweep
 
 import (
-	"archive/zip"
-	"encoding/xml"
 	"fmt"
-	"io"
 	"math"
 	"strconv"
 	"strings"
@@ -119,56 +116,25 @@ var builtinFormats = map[int]string{
 	49: "@",
 }
 
-// styledCells scans a worksheet part for numeric cells, in the first cols
-// columns, whose style makes them a date, a time, a duration or a
-// percentage (kind gives a style's kind). Other cells are not listed.
-func styledCells(part *zip.File, cols int, kind func(int) cellKind) (map[place]cellKind, error) {
-	rc, err := part.Open()
-	if err != nil {
-		return nil, err
+// cellKinds collects, while a worksheet is scanned, the numeric cells
+// whose style makes them a date, a time, a duration or a percentage (kind
+// gives a style's kind). Other cells are not listed.
+type cellKinds struct {
+	kind func(int) cellKind
+	at   map[place]cellKind
+}
+
+// note looks at a cell's type (t) and style (s) attributes.
+func (k *cellKinds) note(at place, typ, style string) {
+	if k == nil || style == "" || style == "0" || (typ != "" && typ != "n" && typ != "d") {
+		return
 	}
-	defer rc.Close()
-	d := xml.NewDecoder(io.LimitReader(rc, maxFileBytes))
-	out := map[place]cellKind{}
-	row, col := 0, 0
-	for {
-		tok, err := d.Token()
-		if err == io.EOF {
-			return out, nil
-		}
-		if err != nil {
-			return nil, err
-		}
-		t, ok := tok.(xml.StartElement)
-		if !ok {
-			continue
-		}
-		switch t.Name.Local {
-		case "row":
-			row++
-			if v, err := strconv.Atoi(attr(t, "r")); err == nil {
-				row = v
-			}
-			col = 0
-		case "c":
-			col++
-			if r := attr(t, "r"); r != "" {
-				if c, rr, err := excelize.CellNameToCoordinates(r); err == nil {
-					col, row = c, rr
-				}
-			}
-			s := attr(t, "s")
-			if typ := attr(t, "t"); s == "" || s == "0" || (typ != "" && typ != "n" && typ != "d") || col > cols || row > MaxRows {
-				continue
-			}
-			idx, err := strconv.Atoi(s)
-			if err != nil {
-				continue
-			}
-			if k := kind(idx); k != kindNumber {
-				out[place{row, col}] = k
-			}
-		}
+	idx, err := strconv.Atoi(style)
+	if err != nil {
+		return
+	}
+	if c := k.kind(idx); c != kindNumber {
+		k.at[at] = c
 	}
 }
 
@@ -210,23 +176,17 @@ func cellText(raw string, k cellKind, date1904 bool) string {
 	return raw
 }
 
-// cellKinds reads a worksheet's date, time and percentage cells (see
-// styledCells) with the workbook's styles; nil when the part cannot be
-// scanned (the scan for damaged cells reports that).
-func cellKinds(f *excelize.File, part *zip.File, cols int) map[place]cellKind {
+// styleKinds returns the kind of each style of a workbook, read once.
+func styleKinds(f *excelize.File) func(int) cellKind {
 	cache := map[int]cellKind{}
-	kinds, err := styledCells(part, cols, func(idx int) cellKind {
+	return func(idx int) cellKind {
 		k, ok := cache[idx]
 		if !ok {
 			k = styleKind(f, idx)
 			cache[idx] = k
 		}
 		return k
-	})
-	if err != nil {
-		return nil
 	}
-	return kinds
 }
 
 // date1904 reports whether a workbook counts dates from 1904.

@@ -146,7 +146,8 @@ func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 
 // readXLSXSheet reads one worksheet.
 func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, r *sheetReader) {
-	issues, err := scanSheet(part, len(r.cols), nStrings)
+	kinds := cellKinds{kind: styleKinds(f), at: map[place]cellKind{}}
+	issues, err := scanSheet(part, len(r.cols), nStrings, &kinds)
 	if errors.Is(err, errTooWide) {
 		for _, is := range issues {
 			r.add(is.at.in(r.sheet), "%s", is.msg)
@@ -164,7 +165,7 @@ func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, 
 		}
 		r.flagged[is.at] = true
 	}
-	kinds, use1904 := cellKinds(f, part, len(r.cols)), date1904(f)
+	use1904 := date1904(f)
 	rows, err := f.Rows(name)
 	if err != nil {
 		r.add(Cell{Sheet: r.sheet}, "cannot read the sheet: %v", err)
@@ -182,7 +183,7 @@ func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, 
 			}
 			continue
 		}
-		typedCells(cells, n, kinds, use1904)
+		typedCells(cells, n, kinds.at, use1904)
 		if !r.row(n, cells) {
 			return
 		}
@@ -221,9 +222,10 @@ type cellIssue struct {
 // text: a formula without a cached value (no <v> element), a formula whose
 // cached value is an error (#DIV/0!), and a reference to a shared string
 // that does not exist (nStrings is the number of shared strings). At most
-// maxSheetProblems are returned.
-func scanSheet(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
-	return scanSheetCells(part, cols, nStrings)
+// maxSheetProblems are returned. The same scan notes the cells whose
+// number format makes them dates, times or percentages in kinds.
+func scanSheet(part *zip.File, cols, nStrings int, kinds *cellKinds) ([]cellIssue, error) {
+	return scanSheetCells(part, cols, nStrings, kinds)
 }
 
 // MaxColumns is the widest a study sheet may be: its own columns and room
@@ -232,7 +234,7 @@ const MaxColumns = 256
 
 var errTooWide = errors.New("sheet too wide")
 
-func scanSheetCells(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
+func scanSheetCells(part *zip.File, cols, nStrings int, kinds *cellKinds) ([]cellIssue, error) {
 	rc, err := part.Open()
 	if err != nil {
 		return nil, err
@@ -279,6 +281,9 @@ func scanSheetCells(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
 					return append(found, cellIssue{place{row, 0}, fmt.Sprintf("the sheet has a cell at %s, beyond column %s: a study sheet uses its first %d columns; delete the cells far to the right", cell, ColumnLetters(MaxColumns), len(Columns["Strategies"]))}), errTooWide
 				}
 				inCell, hasF, hasV, typ, value = true, false, false, attr(t, "t"), ""
+				if col <= cols && row <= MaxRows {
+					kinds.note(place{row, col}, typ, attr(t, "s"))
+				}
 			case "f":
 				hasF = hasF || inCell
 			case "v":
