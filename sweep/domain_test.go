@@ -3,6 +3,7 @@ package sweep
 import (
 	"context"
 	"fmt"
+	"math"
 	"runtime"
 	"runtime/debug"
 	"strings"
@@ -134,5 +135,35 @@ func BenchmarkSyntheticPeak(b *testing.B) {
 			b.ReportMetric(float64(after.HeapAlloc)/(1<<20), "MiB-live")
 			runtime.KeepAlive(res)
 		})
+	}
+}
+
+// TestRequirementsCancelled: the requirement curves (the longest step of
+// a combination at a million points) stop when the context is done.
+func TestRequirementsCancelled(t *testing.T) {
+	plan, err := prepare(t, scenario(t, "tug"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := plan.Strategies[1].Cases[0]
+	x, err := plan.newCombo(c, c.Media[0], nil, c.Facilities[0], math.NaN())
+	if err != nil {
+		t.Fatal(err)
+	}
+	limits, _, err := x.limitsFor()
+	if err != nil {
+		t.Fatal(err)
+	}
+	us := make([]float64, 1000)
+	for i := range us {
+		us[i] = math.Log10(plan.Grid[0]) + float64(i)/float64(len(us))
+	}
+	if got := x.requirements(context.Background(), limits, us); len(got) == 0 {
+		t.Fatal("no requirement to compute: the test needs a facility limit")
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if got := x.requirements(ctx, limits, us); got != nil {
+		t.Errorf("a cancelled context still gave %d requirement curves", len(got))
 	}
 }

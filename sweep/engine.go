@@ -292,7 +292,11 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 	if len(axes) > 1 {
 		r.Axis = axes[bestI]
 	}
-	best.requirements = best.combo.requirements(best.limits, us)
+	best.requirements = best.combo.requirements(ctx, best.limits, us)
+	if err := ctx.Err(); err != nil {
+		r.Err = err.Error()
+		return r
+	}
 	best.fill(r)
 	if p.Settings.Samples > 0 && len(p.Uncertain) > 0 {
 		r.Robust = best.robust(us, p.Settings.Seed, index)
