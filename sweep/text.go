@@ -53,7 +53,7 @@ func normSpace(v string) string {
 		}
 		prev = r
 	}
-	if clean && !strings.HasSuffix(v, " ") && !strings.Contains(v, " \n") {
+	if clean && v == strings.TrimSpace(v) && !strings.Contains(v, " \n") {
 		return v
 	}
 	lines := strings.Split(v, "\n")
