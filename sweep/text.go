@@ -230,6 +230,9 @@ func sameUnit(a, b string) bool {
 // tidyCell checks and tidies one cell of a data row: it returns the value
 // to keep, or a message when the cell is refused.
 func (r *sheetReader) tidyCell(col, v string) (string, string) {
+	if col == "note" {
+		return v, "" // notes are not kept, nor shown
+	}
 	if ch, bad := hiddenChar(v); bad {
 		return v, hiddenMessage(ch)
 	}
