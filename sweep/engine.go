@@ -297,7 +297,10 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 		r.Err = err.Error()
 		return r
 	}
-	best.fill(r)
+	if !best.fill(ctx, r) {
+		r.Err = ctx.Err().Error()
+		return r
+	}
 	if p.Settings.Samples > 0 && len(p.Uncertain) > 0 {
 		r.Robust = best.robust(us, p.Settings.Seed, index)
 	}
@@ -696,7 +699,8 @@ func Scale(kL float64) string {
 
 // fill copies a sweep's findings into the combination result and works
 // out the recommended scale, cost, required properties and corrections.
-func (o *sweepOut) fill(r *ComboResult) {
+// It returns false when ctx is done before the cost curve is complete.
+func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 	x := o.combo
 	p := x.plan
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
@@ -707,7 +711,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 		r.Limits = append(r.Limits, l.info)
 	}
 	if r.Window.Empty() {
-		return
+		return true
 	}
 	r.Largest = r.Window.Largest()
 	costAt := func(kL float64) (float64, error) { return x.cost(kL) }
@@ -715,6 +719,9 @@ func (o *sweepOut) fill(r *ComboResult) {
 	if hasCost {
 		r.CostCurve = make([]float64, len(p.Grid))
 		for i, k := range p.Grid {
+			if i%pointsPerCheck == 0 && ctx.Err() != nil {
+				return false
+			}
 			c, err := costAt(k)
 			if err != nil {
 				c = math.NaN()
@@ -838,6 +845,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 			r.Notes = append(r.Notes, "ITTC-1957 correction needs reference_length, reference_speed and the kinematic viscosity of prototype and model")
 		}
 	}
+	return true
 }
 
 // friction computes the ITTC-1957 correction at ln kL.
