@@ -131,7 +131,7 @@ func (p *Plan) checkMemory(ps *Problems) {
 	if need <= float64(budget) {
 		return
 	}
-	ps.Add(p.Settings.Cell("points"), "the sweep would need about %s of memory (%d grid points × %d combinations), more than the soft limit of %s: reduce points to at most %d (or axis_points, or the candidates and strategies)",
+	ps.Add(p.Settings.Cell("points"), "the sweep would need about %s of memory (%d grid points × %d combinations), more than the soft limit of %s: reduce points to at most %d (or axis_points, or the candidates and strategies), or raise the limit with GOMEMLIMIT",
 		mib(need), points, combos, mib(float64(budget)), max(2, int(float64(p.Settings.Points)*float64(budget)/need)))
 }
 
