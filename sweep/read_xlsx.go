@@ -53,9 +53,9 @@ func loadXLSX(p, base string) (*Study, error) {
 // values: a number is its stored value, not its display format (so a cell
 // formatted "0.00" or as a currency still gives its full value), a formula
 // its cached value. A number formatted as a date or a time is read as the
-// text a person typed (see cellText). Formulas without a cached value are found by a
-// streaming scan of the worksheet XML, since the iterator gives them as
-// empty cells.
+// text a person typed (see cellText). Formulas without a cached value are
+// found by a streaming scan of the worksheet XML, since the iterator gives
+// them as empty cells.
 func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 	s := newStudy(source)
 	var ps Problems
