@@ -124,9 +124,13 @@ func (p *Plan) memoryNeed() (need float64, points, combos int) {
 }
 
 // checkMemory refuses a sweep that would need more memory than the soft
-// limit, with the figure it would need.
+// limit, with the figure it would need, before the grid is made.
+// A sweep beyond max_points is left to buildGrid, which says so.
 func (p *Plan) checkMemory(ps *Problems) {
 	need, points, combos := p.memoryNeed()
+	if float64(points)*float64(combos) > float64(p.Settings.MaxPoints) {
+		return
+	}
 	budget := memoryBudget()
 	if need <= float64(budget) {
 		return

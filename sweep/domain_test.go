@@ -8,6 +8,8 @@ import (
 	"runtime/debug"
 	"strings"
 	"testing"
+
+	"scaleplan/materials"
 )
 
 // withSetting returns the tug study with settings changed (value, unit).
@@ -100,7 +102,23 @@ func TestOneTypoOneError(t *testing.T) {
 func TestMemoryRefusedUpFront(t *testing.T) {
 	old := debug.SetMemoryLimit(DefaultMemoryBudget)
 	defer debug.SetMemoryLimit(old)
-	_, err := prepare(t, Synthetic(10_000_000, 0, 1, 1))
+	lib, err := materials.Default()
+	if err != nil {
+		t.Fatal(err)
+	}
+	cat, err := NewFacilityCatalog()
+	if err != nil {
+		t.Fatal(err)
+	}
+	study := Synthetic(10_000_000, 0, 1, 1)
+	var before, after runtime.MemStats
+	runtime.ReadMemStats(&before)
+	_, err = Prepare(study, lib, cat)
+	runtime.ReadMemStats(&after)
+	// Refused before the grid is made: the grid alone would be 80 MB.
+	if alloc := after.TotalAlloc - before.TotalAlloc; alloc > 16<<20 {
+		t.Errorf("the refused check allocated %d bytes", alloc)
+	}
 	got := problemLines(t, err)
 	// 10^7 points × (160 + 96) bytes = 2.56e9 bytes = 2442 MiB.
 	want := "Study!B6: the sweep would need about 2442 MiB of memory (10000000 grid points × 1 combinations), more than the soft limit of 768 MiB"

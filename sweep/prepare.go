@@ -143,10 +143,10 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.prepareUncertain(&ps)
 	p.checkDomain(&ps)
 	if len(ps) == 0 {
-		p.buildGrid(&ps)
+		p.checkMemory(&ps)
 	}
 	if len(ps) == 0 {
-		p.checkMemory(&ps)
+		p.buildGrid(&ps)
 	}
 	if len(ps) == 0 {
 		p.checkLimitsFinite(&ps)
