@@ -3,6 +3,7 @@ package sweep
 import (
 	"fmt"
 	"math"
+	"runtime"
 	"runtime/debug"
 	"strconv"
 )
@@ -39,6 +40,9 @@ const (
 	bytesPerPoint     = 160
 	bytesPerAxisPoint = 16
 	bytesPerGridPoint = 96
+	// bytesPerDraw is what a draw of the uncertain inputs holds besides 8
+	// bytes per input (a slice header).
+	bytesPerDraw = 24
 )
 
 // memoryBudget is the soft memory limit of the process, or
@@ -104,8 +108,9 @@ func (p *Plan) axisRole(ax string) string {
 	return ""
 }
 
-// memoryNeed estimates the bytes a study's sweep and outputs need.
-func (p *Plan) memoryNeed() (need float64, points, combos int) {
+// memoryNeed estimates the bytes a study's sweep and outputs need
+// (sweep), and those its draws of the uncertain inputs need (draws).
+func (p *Plan) memoryNeed() (sweep, draws float64, points, combos int) {
 	st := p.Settings
 	points = st.Points
 	if st.Axis != "" {
@@ -120,23 +125,37 @@ func (p *Plan) memoryNeed() (need float64, points, combos int) {
 	if st.Axis != "" {
 		perCombo += float64(points) * bytesPerAxisPoint
 	}
-	return float64(combos)*perCombo + float64(st.Points)*bytesPerGridPoint, points, combos
+	sweep = float64(combos)*perCombo + float64(st.Points)*bytesPerGridPoint
+	if st.Samples > 0 && len(p.Uncertain) > 0 {
+		// Held by each combination being sampled at once (one per core).
+		perDraw := float64(bytesPerDraw + 8*len(p.Uncertain))
+		draws = perDraw * float64(st.Samples) * float64(min(runtime.GOMAXPROCS(0), max(combos, 1)))
+	}
+	return sweep, draws, points, combos
 }
 
 // checkMemory refuses a sweep that would need more memory than the soft
 // limit, with the figure it would need, before the grid is made.
 // A sweep beyond max_points is left to buildGrid, which says so.
 func (p *Plan) checkMemory(ps *Problems) {
-	need, points, combos := p.memoryNeed()
-	if float64(points)*float64(combos) > float64(p.Settings.MaxPoints) {
+	sweep, draws, points, combos := p.memoryNeed()
+	st := p.Settings
+	if float64(points)*float64(combos) > float64(st.MaxPoints) {
 		return
 	}
-	budget := memoryBudget()
-	if need <= float64(budget) {
+	budget := float64(memoryBudget())
+	need := sweep + draws
+	if need <= budget {
 		return
 	}
-	ps.Add(p.Settings.Cell("points"), "the sweep would need about %s of memory (%d grid points × %d combinations), more than the soft limit of %s: reduce points to at most %d (or axis_points, or the candidates and strategies), or raise the limit with GOMEMLIMIT",
-		mib(need), points, combos, mib(float64(budget)), max(2, int(float64(p.Settings.Points)*float64(budget)/need)))
+	if draws > sweep {
+		fit := max(0, int(float64(st.Samples)*(budget-sweep)/draws))
+		ps.Add(st.Cell("samples"), "the draws of the uncertain inputs would need about %s of memory (%d draws × %d inputs), more than the soft limit of %s with the sweep: reduce samples to at most %d, or raise the limit with GOMEMLIMIT",
+			mib(need), st.Samples, len(p.Uncertain), mib(budget), fit)
+		return
+	}
+	ps.Add(st.Cell("points"), "the sweep would need about %s of memory (%d grid points × %d combinations), more than the soft limit of %s: reduce points to at most %d (or axis_points, or the candidates and strategies), or raise the limit with GOMEMLIMIT",
+		mib(need), points, combos, mib(budget), max(2, int(float64(st.Points)*budget/need)))
 }
 
 func mib(b float64) string {

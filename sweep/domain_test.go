@@ -185,3 +185,27 @@ func TestRequirementsCancelled(t *testing.T) {
 		t.Errorf("a cancelled context still gave %d requirement curves", len(got))
 	}
 }
+
+// TestMemoryOfDraws: ten million draws of the uncertain inputs, held by
+// each combination being sampled, count against the memory budget too.
+func TestMemoryOfDraws(t *testing.T) {
+	old := debug.SetMemoryLimit(DefaultMemoryBudget)
+	defer debug.SetMemoryLimit(old)
+	defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(2))
+	s := tugWith(t, map[string][2]string{"samples": {"10000000", ""}})
+	inputs := len(s.Uncertain) + 1 // 3
+	s.Uncertain = append(s.Uncertain, UncertainRow{Input: "beam", Distribution: "normal", Spread: "2%", Row: 9})
+	_, err := prepare(t, s)
+	// With the tug's two uncertain inputs and beam: 10^7 draws × (24 +
+	// 8 × 3) bytes × 2 combinations at once = 960 MB, above 768 MiB
+	// (805 MB).
+	if got := problemLines(t, err); len(got) != 1 || !strings.HasPrefix(got[0], "Study!") || !strings.Contains(got[0], fmt.Sprintf("(10000000 draws × %d inputs)", inputs)) || !strings.Contains(got[0], "reduce samples to at most") {
+		t.Errorf("want the memory refusal of the draws, got:\n  %s", strings.Join(got, "\n  "))
+	}
+	// A thousand draws fit.
+	s = tugWith(t, map[string][2]string{"samples": {"1000", ""}})
+	s.Uncertain = append(s.Uncertain, UncertainRow{Input: "hull_length", Distribution: "normal", Spread: "2%", Row: 2})
+	if _, err := prepare(t, s); err != nil {
+		t.Errorf("1000 draws refused: %v", err)
+	}
+}
