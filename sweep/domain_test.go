@@ -8,8 +8,6 @@ import (
 	"runtime/debug"
 	"strings"
 	"testing"
-
-	"scaleplan/materials"
 )
 
 // withSetting returns the tug study with settings changed (value, unit).
@@ -102,20 +100,13 @@ func TestOneTypoOneError(t *testing.T) {
 func TestMemoryRefusedUpFront(t *testing.T) {
 	old := debug.SetMemoryLimit(DefaultMemoryBudget)
 	defer debug.SetMemoryLimit(old)
-	lib, err := materials.Default()
-	if err != nil {
-		t.Fatal(err)
-	}
-	cat, err := NewFacilityCatalog()
-	if err != nil {
-		t.Fatal(err)
-	}
 	study := Synthetic(10_000_000, 0, 1, 1)
 	var before, after runtime.MemStats
 	runtime.ReadMemStats(&before)
-	_, err = Prepare(study, lib, cat)
+	_, err := prepare(t, study)
 	runtime.ReadMemStats(&after)
-	// Refused before the grid is made: the grid alone would be 80 MB.
+	// Refused before the grid is made: the grid alone would be 80 MB (the
+	// library and the catalogue take about 1 MB).
 	if alloc := after.TotalAlloc - before.TotalAlloc; alloc > 16<<20 {
 		t.Errorf("the refused check allocated %d bytes", alloc)
 	}
