@@ -40,3 +40,21 @@ func TestWriteWorkbookCancelled(t *testing.T) {
 		t.Errorf("the workbook stopped at %d checks, want at least 4", stopped)
 	}
 }
+
+// TestWritePlotsCancelled: the maps check for an interrupt before each
+// map; cancelled at the n-th check, exactly n maps are written.
+func TestWritePlotsCancelled(t *testing.T) {
+	res := rbRun(t, "tug", "")
+	all, err := report.WritePlots(t.TempDir(), "tug", res, report.PlotPNG)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for n := int64(0); n < int64(len(all)); n++ {
+		ctx := &countdownCtx{Context: context.Background()}
+		ctx.left.Store(n)
+		files, err := report.WritePlotsContext(ctx, t.TempDir(), "tug", res, report.PlotPNG)
+		if !errors.Is(err, context.Canceled) || int64(len(files)) != n {
+			t.Errorf("cancelled at check %d: %d maps written, error %v", n, len(files), err)
+		}
+	}
+}

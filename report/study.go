@@ -63,7 +63,7 @@ func reservedName(s string) bool {
 // for when it is another), the workbook with the PNG maps embedded, and
 // the memo.
 func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, format string) ([]string, error) {
-	maps, err := WritePlots(dir, base, res, PlotPNG)
+	maps, err := WritePlotsContext(ctx, dir, base, res, PlotPNG)
 	if err != nil {
 		return nil, err
 	}
@@ -72,7 +72,7 @@ func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, form
 	}
 	files := append([]string(nil), maps...)
 	if format != PlotPNG {
-		more, err := WritePlots(dir, base, res, format)
+		more, err := WritePlotsContext(ctx, dir, base, res, format)
 		if err != nil {
 			return nil, err
 		}
