@@ -60,11 +60,12 @@ func readManifest(dir, base string) []string {
 }
 
 // ownOutput reports whether a file name can be an output of the study
-// base: base itself followed by a dot or a dash and more (tug.xlsx,
-// tug.memo.md, tug-band-1.png).
+// base: base itself followed by a dot and more (tug.xlsx, tug.memo.md,
+// tug.band-1-froude.png). A base holds no dot (see FileName), so the
+// outputs of another study (tug-2.xlsx) never match.
 func ownOutput(name, base string) bool {
 	rest, ok := strings.CutPrefix(name, base)
-	return ok && len(rest) > 1 && (rest[0] == '.' || rest[0] == '-')
+	return ok && len(rest) > 1 && rest[0] == '.'
 }
 
 // readSmall reads a regular file of at most limit bytes.

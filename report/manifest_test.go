@@ -82,15 +82,18 @@ func TestRerunKeepsOneSet(t *testing.T) {
 
 // TestStaleStagingRemoved: a staging folder and a temporary file left by a
 // killed run of the study are removed by the next run; those of another
-// study are not.
+// study are not, also one whose name starts like this one's (it may be
+// running beside it in a batch).
 func TestStaleStagingRemoved(t *testing.T) {
 	dir := t.TempDir()
 	own := []string{".harbour-tug.partial-12345", ".harbour-tug.xlsx.partial-678"}
-	other := ".pier.partial-999"
+	others := []string{".pier.partial-999", ".harbour-tug-2.partial-999", ".harbour-tug-2.xlsx.partial-1"}
 	os.Mkdir(filepath.Join(dir, own[0]), 0o755)
 	os.WriteFile(filepath.Join(dir, own[0], "harbour-tug.xlsx"), []byte("half"), 0o644)
 	os.WriteFile(filepath.Join(dir, own[1]), []byte("half"), 0o644)
-	os.Mkdir(filepath.Join(dir, other), 0o755)
+	for _, o := range others {
+		os.Mkdir(filepath.Join(dir, o), 0o755)
+	}
 	if _, err := report.WriteStudy(context.Background(), dir, mfRun(t, 2, "40")); err != nil {
 		t.Fatal(err)
 	}
@@ -99,8 +102,10 @@ func TestStaleStagingRemoved(t *testing.T) {
 			t.Errorf("left behind: %s", n)
 		}
 	}
-	if _, err := os.Lstat(filepath.Join(dir, other)); err != nil {
-		t.Errorf("another study's staging folder was removed: %v", err)
+	for _, o := range others {
+		if _, err := os.Lstat(filepath.Join(dir, o)); err != nil {
+			t.Errorf("another study's staging folder was removed: %v", err)
+		}
 	}
 }
 
