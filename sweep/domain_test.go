@@ -200,3 +200,33 @@ func TestMemoryOfDraws(t *testing.T) {
 		t.Errorf("1000 draws refused: %v", err)
 	}
 }
+
+// TestRobustCancelled: sampling the uncertain inputs stops when the
+// context is done.
+func TestRobustCancelled(t *testing.T) {
+	plan, err := prepare(t, tugWith(t, map[string][2]string{"samples": {"50000", ""}}))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := plan.Strategies[1].Cases[0]
+	x, err := plan.newCombo(c, c.Media[0], nil, c.Facilities[0], math.NaN())
+	if err != nil {
+		t.Fatal(err)
+	}
+	us := make([]float64, len(plan.Grid))
+	for i, k := range plan.Grid {
+		us[i] = math.Log10(k)
+	}
+	out, err := x.sweep(context.Background(), us, sampleCache{}, make([]int, len(us)))
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r := out.robust(context.Background(), us, 1, 0); r == nil || len(r.Probability) != len(us) {
+		t.Fatal("no robust result to compare with")
+	}
+	ctx, cancel := context.WithCancel(context.Background())
+	cancel()
+	if r := out.robust(ctx, us, 1, 0); r != nil {
+		t.Error("a cancelled context still gave a robust result")
+	}
+}

@@ -302,7 +302,7 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 		return r
 	}
 	if p.Settings.Samples > 0 && len(p.Uncertain) > 0 {
-		r.Robust = best.robust(us, p.Settings.Seed, index)
+		r.Robust = best.robust(ctx, us, p.Settings.Seed, index)
 	}
 	return r
 }

@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"math/rand/v2"
@@ -185,7 +186,8 @@ type InputGain struct {
 // axis value. The margins of products-of-powers limits are linear in the
 // log of every input, so each input's effect is found once (a decade's
 // change) and each draw is a sum; other limits keep their nominal set.
-func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
+// It returns nil when ctx is done (checked every drawsPerCheck draws).
+func (o *sweepOut) robust(ctx context.Context, us []float64, seed uint64, index int) *Robust {
 	x := o.combo
 	p := x.plan
 	var inputs []*Uncertain
@@ -236,6 +238,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 	deltas := make([][]float64, n)
 	src := rand.NewPCG(seed, uint64(index)+1)
 	for s := range deltas {
+		if s%drawsPerCheck == 0 && ctx.Err() != nil {
+			return nil
+		}
 		deltas[s] = make([]float64, len(inputs))
 		for i, u := range inputs {
 			f := u.draw(src)
@@ -254,6 +259,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 		}
 		A := make([]float64, nl)
 		for s := 0; s < n; s++ {
+			if s%drawsPerCheck == 0 && ctx.Err() != nil {
+				return nil, nil
+			}
 			for j, l := range o.limits {
 				A[j] = l.info.A
 				for i := range inputs {
@@ -339,6 +347,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 		return prob, fails
 	}
 	prob, fails := sample(-1)
+	if prob == nil {
+		return nil // interrupted
+	}
 	R.Probability = prob
 	R.MostFailing = make([]string, len(us))
 	for i := range us {
@@ -364,6 +375,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 			continue
 		}
 		pi, _ := sample(i)
+		if pi == nil {
+			return nil // interrupted
+		}
 		R.Sensitivity = append(R.Sensitivity, InputGain{u.Label, width(probWindow(us, pi, R.Level)) - base})
 	}
 	sort.SliceStable(R.Sensitivity, func(a, b int) bool { return R.Sensitivity[a].Gain > R.Sensitivity[b].Gain })
@@ -402,3 +416,7 @@ func interp(u0, u1, p0, p1, level float64) float64 {
 	}
 	return u0 + (level-p0)/(p1-p0)*(u1-u0)
 }
+
+// drawsPerCheck is how many draws are sampled between two checks for an
+// interrupt.
+const drawsPerCheck = 1 << 15
