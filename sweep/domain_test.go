@@ -150,15 +150,7 @@ func BenchmarkSyntheticPeak(b *testing.B) {
 // TestRequirementsCancelled: the requirement curves (the longest step of
 // a combination at a million points) stop when the context is done.
 func TestRequirementsCancelled(t *testing.T) {
-	plan, err := prepare(t, scenario(t, "tug"))
-	if err != nil {
-		t.Fatal(err)
-	}
-	c := plan.Strategies[1].Cases[0]
-	x, err := plan.newCombo(c, c.Media[0], nil, c.Facilities[0], math.NaN())
-	if err != nil {
-		t.Fatal(err)
-	}
+	plan, x := froudeCombo(t, nil)
 	limits, _, err := x.limitsFor()
 	if err != nil {
 		t.Fatal(err)
@@ -204,15 +196,7 @@ func TestMemoryOfDraws(t *testing.T) {
 // TestRobustCancelled: sampling the uncertain inputs stops when the
 // context is done.
 func TestRobustCancelled(t *testing.T) {
-	plan, err := prepare(t, tugWith(t, map[string][2]string{"samples": {"50000", ""}}))
-	if err != nil {
-		t.Fatal(err)
-	}
-	c := plan.Strategies[1].Cases[0]
-	x, err := plan.newCombo(c, c.Media[0], nil, c.Facilities[0], math.NaN())
-	if err != nil {
-		t.Fatal(err)
-	}
+	plan, x := froudeCombo(t, map[string][2]string{"samples": {"50000", ""}})
 	us := make([]float64, len(plan.Grid))
 	for i, k := range plan.Grid {
 		us[i] = math.Log10(k)
@@ -229,4 +213,21 @@ func TestRobustCancelled(t *testing.T) {
 	if r := out.robust(ctx, us, 1, 0); r != nil {
 		t.Error("a cancelled context still gave a robust result")
 	}
+}
+
+// froudeCombo prepares the tug study with settings changed and returns
+// the combination of its Froude-scaling strategy in its first medium and
+// facility.
+func froudeCombo(t *testing.T, settings map[string][2]string) (*Plan, *combo) {
+	t.Helper()
+	plan, err := prepare(t, tugWith(t, settings))
+	if err != nil {
+		t.Fatal(err)
+	}
+	c := plan.Strategies[1].Cases[0]
+	x, err := plan.newCombo(c, c.Media[0], nil, c.Facilities[0], math.NaN())
+	if err != nil {
+		t.Fatal(err)
+	}
+	return plan, x
 }
