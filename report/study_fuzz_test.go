@@ -120,10 +120,14 @@ func FuzzStudy(f *testing.F) {
 	})
 }
 
-// fzCap keeps a fuzzed study small: at most 24 scales, 3 axis values and
-// 50 draws of the uncertain inputs.
+// fzCap keeps a fuzzed study small: at most 12 scales, 3 axis values, 50
+// draws of the uncertain inputs and 2 strategy rows (each input then runs
+// in about a second, outputs included).
 func fzCap(s *sweep.Study) {
-	for key, limit := range map[string]int{"points": 24, "axis_points": 3, "samples": 50} {
+	if len(s.Strategies) > 2 {
+		s.Strategies = s.Strategies[:2]
+	}
+	for key, limit := range map[string]int{"points": 12, "axis_points": 3, "samples": 50} {
 		set, ok := s.Settings[key]
 		if !ok {
 			continue
@@ -134,7 +138,7 @@ func fzCap(s *sweep.Study) {
 		}
 	}
 	if _, ok := s.Settings["points"]; !ok {
-		s.Settings["points"] = sweep.Setting{Name: "points", Value: "24", Cell: sweep.Cell{Sheet: "Study", Row: 900, Col: 2}}
+		s.Settings["points"] = sweep.Setting{Name: "points", Value: "12", Cell: sweep.Cell{Sheet: "Study", Row: 900, Col: 2}}
 	}
 }
 
