@@ -70,13 +70,13 @@ func countCells(b *testing.B, data []byte) (cells, cols int) {
 func BenchmarkWorkbook(b *testing.B) {
 	res := syntheticResult(b)
 	var buf bytes.Buffer
-	if err := writeWorkbook(&buf, res); err != nil {
+	if err := writeWorkbook(context.Background(), &buf, res); err != nil {
 		b.Fatal(err)
 	}
 	cells, _ := countCells(b, buf.Bytes())
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
-		if err := writeWorkbook(io.Discard, res); err != nil {
+		if err := writeWorkbook(context.Background(), io.Discard, res); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -89,7 +89,7 @@ func BenchmarkWorkbook(b *testing.B) {
 func BenchmarkStreamWriterAlone(b *testing.B) {
 	res := syntheticResult(b)
 	var buf bytes.Buffer
-	if err := writeWorkbook(&buf, res); err != nil {
+	if err := writeWorkbook(context.Background(), &buf, res); err != nil {
 		b.Fatal(err)
 	}
 	cells, _ := countCells(b, buf.Bytes())

@@ -2,6 +2,7 @@ package report
 
 import (
 	"bytes"
+	"context"
 	"fmt"
 	"image/color"
 	"io"
@@ -81,6 +82,12 @@ const ScaleAxisLabel = "scale 1:x (kL = prototype/model)"
 // name sanitised like a study name. Each file is written atomically, and the
 // same result gives byte-identical files.
 func WritePlots(dir, base string, res *sweep.Result, format string) ([]string, error) {
+	return WritePlotsContext(context.Background(), dir, base, res, format)
+}
+
+// WritePlotsContext is WritePlots that stops before each map when ctx is
+// done.
+func WritePlotsContext(ctx context.Context, dir, base string, res *sweep.Result, format string) ([]string, error) {
 	format, err := ParsePlotFormat(format)
 	if err != nil {
 		return nil, err
@@ -91,6 +98,9 @@ func WritePlots(dir, base string, res *sweep.Result, format string) ([]string, e
 	date := pdfDate(res.Plan.Settings.InputsDate)
 	var files []string
 	write := func(kind string, i int, sr *sweep.StrategyResult, w, h vg.Length, draw func(draw.Canvas)) error {
+		if err := ctx.Err(); err != nil {
+			return err
+		}
 		name := fmt.Sprintf("%s.%s-%d-%s.%s", base, kind, i+1, FileName(sr.Name), format)
 		path := filepath.Join(dir, name)
 		data, err := renderPlot(format, w, h, date, draw)
@@ -131,6 +141,9 @@ func WritePlots(dir, base string, res *sweep.Result, format string) ([]string, e
 		}
 	}
 	if rows := TradeoffData(res); rows != nil {
+		if err := ctx.Err(); err != nil {
+			return files, err
+		}
 		f, err := writeTradeoffPlot(dir, base, format, date, res, rows)
 		if err != nil {
 			return files, err

@@ -63,7 +63,7 @@ func reservedName(s string) bool {
 // for when it is another), the workbook with the PNG maps embedded, and
 // the memo.
 func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, format string) ([]string, error) {
-	maps, err := WritePlots(dir, base, res, PlotPNG)
+	maps, err := WritePlotsContext(ctx, dir, base, res, PlotPNG)
 	if err != nil {
 		return nil, err
 	}
@@ -72,7 +72,7 @@ func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, form
 	}
 	files := append([]string(nil), maps...)
 	if format != PlotPNG {
-		more, err := WritePlots(dir, base, res, format)
+		more, err := WritePlotsContext(ctx, dir, base, res, format)
 		if err != nil {
 			return nil, err
 		}
@@ -82,7 +82,7 @@ func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, form
 		return nil, err
 	}
 	wb := filepath.Join(dir, base+".xlsx")
-	if err := WriteWorkbook(wb, res, maps...); err != nil {
+	if err := WriteWorkbookContext(ctx, wb, res, maps...); err != nil {
 		return nil, err
 	}
 	if err := ctx.Err(); err != nil {
@@ -103,7 +103,14 @@ func studyOutputs(ctx context.Context, dir, base string, res *sweep.Result, form
 // when all of them are complete and ctx is not done. On an error, or when
 // ctx is cancelled (an interrupt), nothing is moved, the staging folder is
 // removed, and dir is left as it was: it holds every new output of the
-// study or none, and never a half-written file.
+// study or none, and never a half-written file. A rename that fails while
+// the outputs are moved into place puts the earlier outputs back (see
+// moveIntoPlace).
+//
+// The folder holds one run's set of the study's files: the files written
+// are listed in a manifest (ManifestName), and the earlier run's files
+// that are not written again are removed, as is a staging folder a killed
+// run left; nothing scaleplan did not write is touched.
 //
 // The maps are PNG; a format of svg or pdf writes those too (the first of
 // formats counts; none means PNG only).
@@ -120,6 +127,7 @@ func WriteStudy(ctx context.Context, dir string, res *sweep.Result, formats ...s
 		format = f
 	}
 	base := FileName(res.Name)
+	removeStale(dir, base)
 	stage, err := os.MkdirTemp(dir, "."+base+partialMark+"*")
 	if err != nil {
 		return nil, fmt.Errorf("output folder %s: %v", dir, err)
@@ -136,13 +144,18 @@ func WriteStudy(ctx context.Context, dir string, res *sweep.Result, formats ...s
 	if err := ctx.Err(); err != nil {
 		return nil, err
 	}
-	var written []string
-	for _, s := range staged {
-		p := filepath.Join(dir, filepath.Base(s))
-		if err := os.Rename(s, p); err != nil {
-			return written, fmt.Errorf("writing %s: %v", p, err)
-		}
-		written = append(written, p)
+	old := readManifest(dir, base)
+	aside, err := os.MkdirTemp(stage, ".aside-")
+	if err != nil {
+		return nil, fmt.Errorf("output folder %s: %v", dir, err)
 	}
+	written, err := moveIntoPlace(dir, aside, staged)
+	if err != nil {
+		return nil, err
+	}
+	if err := writeManifest(dir, base, res.Name, written); err != nil {
+		return written, err
+	}
+	removeOld(dir, old, written)
 	return written, nil
 }

@@ -70,9 +70,18 @@ func TestFileNameSanitised(t *testing.T) {
 // rbRun runs a built-in scenario, its points changed when points > 0.
 func rbRun(t *testing.T, name string, points string) *sweep.Result {
 	t.Helper()
+	return rbRunEdited(t, name, points, nil)
+}
+
+// rbRunEdited is rbRun with the study changed by edit (when not nil).
+func rbRunEdited(t *testing.T, name string, points string, edit func(*sweep.Study)) *sweep.Result {
+	t.Helper()
 	s, err := sweep.LoadScenario(name)
 	if err != nil {
 		t.Fatal(err)
+	}
+	if edit != nil {
+		edit(s)
 	}
 	if points != "" {
 		set := s.Settings["points"]
@@ -178,7 +187,8 @@ func TestWriteStudyInterrupted(t *testing.T) {
 			}
 			continue
 		}
-		if len(got) < 2 || len(files) != len(got) {
+		// The outputs, and the manifest that lists them.
+		if len(got) < 3 || len(files) != len(got)-1 || !report.IsManifest(got[0]) {
 			t.Errorf("not cancelled (%d steps): folder holds %v, files %v", n, got, files)
 		}
 	}

@@ -3,6 +3,7 @@ package report
 import (
 	"archive/zip"
 	"bytes"
+	"context"
 	"fmt"
 	"image/png"
 	"io"
@@ -126,10 +127,21 @@ func tableName(sheet string) string {
 //
 // Feasibility maps given as PNG files are embedded in a Maps sheet.
 func WriteWorkbook(path string, res *sweep.Result, maps ...string) error {
-	return WriteFileAtomic(path, func(w io.Writer) error { return writeWorkbook(w, res, maps...) })
+	return WriteWorkbookContext(context.Background(), path, res, maps...)
 }
 
-func writeWorkbook(w io.Writer, res *sweep.Result, maps ...string) error {
+// WriteWorkbookContext is WriteWorkbook that stops, writing nothing, when
+// ctx is done: it checks between sheets and every rowsPerCheck rows of a
+// map sheet.
+func WriteWorkbookContext(ctx context.Context, path string, res *sweep.Result, maps ...string) error {
+	return WriteFileAtomic(path, func(w io.Writer) error { return writeWorkbook(ctx, w, res, maps...) })
+}
+
+// rowsPerCheck is how many rows of a long sheet are written between two
+// checks for an interrupt.
+const rowsPerCheck = 1 << 14
+
+func writeWorkbook(ctx context.Context, w io.Writer, res *sweep.Result, maps ...string) error {
 	f := excelize.NewFile()
 	defer f.Close()
 	if err := f.SetDocProps(&excelize.DocProperties{Creator: "scaleplan", LastModifiedBy: "scaleplan",
@@ -163,9 +175,12 @@ func writeWorkbook(w io.Writer, res *sweep.Result, maps ...string) error {
 		return err
 	}
 	for i, sr := range res.Strategies {
-		if err := writeMap(f, res, sr, i, bold, bins); err != nil {
+		if err := writeMap(ctx, f, res, sr, i, bold, bins); err != nil {
 			return err
 		}
+	}
+	if err := ctx.Err(); err != nil {
+		return err
 	}
 	if err := writeLimits(f, res, bold); err != nil {
 		return err
@@ -180,6 +195,9 @@ func writeWorkbook(w io.Writer, res *sweep.Result, maps ...string) error {
 		return err
 	}
 	if err := writeInputs(f, res, bold); err != nil {
+		return err
+	}
+	if err := ctx.Err(); err != nil {
 		return err
 	}
 	var buf bytes.Buffer
@@ -456,7 +474,7 @@ func mapSheetName(i int, name string) string {
 // writeMap writes the margin of every combination of a strategy at every
 // grid scale: scale down, combinations across, with a colour scale and the
 // limit that gives each margin.
-func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, bold int, bins []int) error {
+func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, bold int, bins []int) error {
 	grid := res.Plan.Grid
 	header := []string{"scale (1:x)", "kL [-]"}
 	widths := []float64{12, 10}
@@ -478,6 +496,11 @@ func writeMap(f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, 
 		step = (len(grid) + MaxSheetRows - 3) / (MaxSheetRows - 3)
 	}
 	for gi := 0; gi < len(grid); gi += step {
+		if gi/step%rowsPerCheck == 0 {
+			if err := ctx.Err(); err != nil {
+				return err
+			}
+		}
 		row := []any{sweep.Scale(grid[gi]), sig(grid[gi])}
 		for _, c := range sr.Combos {
 			if c.Margins == nil {

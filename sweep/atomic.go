@@ -32,7 +32,7 @@ func WriteFileAtomic(path string, write func(io.Writer) error) (err error) {
 		}
 	}()
 	if err = write(tmp); err != nil {
-		return fmt.Errorf("writing %s: %v", path, err)
+		return fmt.Errorf("writing %s: %w", path, err)
 	}
 	if err = tmp.Sync(); err != nil {
 		return fmt.Errorf("writing %s: %v", path, err)

@@ -298,10 +298,17 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 	if len(axes) > 1 {
 		r.Axis = axes[bestI]
 	}
-	best.requirements = best.combo.requirements(best.limits, us)
-	best.fill(r)
+	best.requirements = best.combo.requirements(ctx, best.limits, us)
+	if err := ctx.Err(); err != nil {
+		r.Err = err.Error()
+		return r
+	}
+	if !best.fill(ctx, r) {
+		r.Err = ctx.Err().Error()
+		return r
+	}
 	if p.Settings.Samples > 0 && len(p.Uncertain) > 0 {
-		r.Robust = best.robust(us, p.Settings.Seed, index)
+		r.Robust = best.robust(ctx, us, p.Settings.Seed, index)
 	}
 	return r
 }
@@ -729,7 +736,8 @@ func Scale(kL float64) string {
 
 // fill copies a sweep's findings into the combination result and works
 // out the recommended scale, cost, required properties and corrections.
-func (o *sweepOut) fill(r *ComboResult) {
+// It returns false when ctx is done before the cost curve is complete.
+func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 	x := o.combo
 	p := x.plan
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
@@ -745,7 +753,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 		r.Limits = append(r.Limits, l.info)
 	}
 	if r.Window.Empty() {
-		return
+		return true
 	}
 	r.Largest = r.Window.Largest()
 	costAt := func(kL float64) (float64, error) { return x.cost(kL) }
@@ -753,6 +761,9 @@ func (o *sweepOut) fill(r *ComboResult) {
 	if hasCost {
 		r.CostCurve = make([]float64, len(p.Grid))
 		for i, k := range p.Grid {
+			if i%pointsPerCheck == 0 && ctx.Err() != nil {
+				return false
+			}
 			c, err := costAt(k)
 			if err != nil {
 				c = math.NaN()
@@ -876,6 +887,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 			r.Notes = append(r.Notes, "ITTC-1957 correction needs reference_length, reference_speed and the kinematic viscosity of prototype and model")
 		}
 	}
+	return true
 }
 
 // friction computes the ITTC-1957 correction at ln kL.

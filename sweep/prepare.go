@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"slices"
@@ -52,6 +53,10 @@ type Plan struct {
 	// Warnings are the study's warnings: from reading, then from
 	// checking (see warnings.go).
 	Warnings Warnings
+	// failed names the prototype items and facility capabilities whose
+	// rows failed a check: still known names, so other checks do not
+	// report them again as unknown (see failedNames).
+	failed failedNames
 }
 
 // ProtoItem is a prototype item in SI.
@@ -149,8 +154,15 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.Warnings = append(append(Warnings(nil), s.Warnings...), p.Warnings...) // reading first
 	p.warnDefaultLimits()
 	p.warnUnusedCapabilities()
+	p.checkDomain(&ps)
+	if len(ps) == 0 {
+		p.checkMemory(&ps)
+	}
 	if len(ps) == 0 {
 		p.buildGrid(&ps)
+	}
+	if len(ps) == 0 {
+		p.checkLimitsFinite(&ps)
 	}
 	if err := ps.Err(); err != nil {
 		return nil, err
@@ -208,6 +220,7 @@ func (p *Plan) prepareItems(ps *Problems) {
 			ps.Add(cell, "item %q appears twice", name)
 			continue
 		}
+		fail := func() { p.failed.add(name) }
 		scales := strings.TrimSpace(it.ScalesAs)
 		var qdim feasibility.Dimension
 		switch scales {
@@ -215,18 +228,27 @@ func (p *Plan) prepareItems(ps *Problems) {
 			scales = ""
 		case "":
 			ps.Add(At("Prototype", it.Row, "scales_as"), "say which quantity %s scales as (e.g. length, velocity) or none for a count", name)
+			fail()
 			continue
 		default:
 			q, err := feasibility.LookupQuantity(scales)
 			if err != nil {
 				ps.Add(At("Prototype", it.Row, "scales_as"), "%v", err)
+				fail()
 				continue
 			}
 			qdim = q.Dim
 		}
-		v, u, err := feasibility.ParseValue(strings.TrimSpace(it.Value + " " + it.Unit))
+		value, unit, err := timeValue(it.Value, it.Unit, qdim)
 		if err != nil {
 			ps.Add(At("Prototype", it.Row, "value"), "%v", err)
+			fail()
+			continue
+		}
+		v, u, err := feasibility.ParseValue(strings.TrimSpace(value + " " + unit))
+		if err != nil {
+			ps.Add(At("Prototype", it.Row, "value"), "%v", err)
+			fail()
 			continue
 		}
 		dim := u.Dim
@@ -235,14 +257,16 @@ func (p *Plan) prepareItems(ps *Problems) {
 				dim = qdim
 			} else if !u.Dim.Equal(qdim) {
 				ps.Add(At("Prototype", it.Row, "unit"), "unit %q does not fit %s (needs %s, got %s)", u.Text, scales, qdim, u.Dim)
+				fail()
 				continue
 			}
 		}
 		if !(v > 0) {
 			ps.Add(At("Prototype", it.Row, "value"), "%s must be positive, got %v", name, v)
+			fail()
 			continue
 		}
-		p.Items[name] = ProtoItem{name, v, strings.TrimSpace(it.Unit), scales, dim, it.Row}
+		p.Items[name] = ProtoItem{name, v, strings.TrimSpace(unit), scales, dim, it.Row}
 		p.ItemOrder = append(p.ItemOrder, name)
 	}
 	if len(p.Items) == 0 {
@@ -251,7 +275,7 @@ func (p *Plan) prepareItems(ps *Problems) {
 	st := &p.Settings
 	pick := func(setting, def, quantity string) string {
 		if v := map[string]string{"reference_length": st.ReferenceLength, "reference_speed": st.ReferenceSpeed}[setting]; v != "" {
-			if _, ok := p.Items[v]; !ok && len(p.Items) > 0 {
+			if _, ok := p.Items[v]; !ok && len(p.Items) > 0 && !p.failed.has(v) {
 				ps.Add(st.Cell(setting), "%s %q is not a prototype item%s", setting, v, feasibility.Suggest(v, p.ItemOrder))
 			}
 			return v
@@ -413,17 +437,26 @@ func (p *Plan) prepareFacilities(ps *Problems) {
 			ps.Add(At("Facilities", r.Row, "capability"), "capability %s of %q is set twice", capName, name)
 			continue
 		}
-		v, u, err := feasibility.ParseValue(strings.TrimSpace(r.Value + " " + r.Unit))
+		value, unit, err := timeValue(r.Value, r.Unit, cp.Dim)
 		if err != nil {
 			ps.Add(At("Facilities", r.Row, "value"), "%v", err)
+			p.failed.add(name, capName)
+			continue
+		}
+		v, u, err := feasibility.ParseValue(strings.TrimSpace(value + " " + unit))
+		if err != nil {
+			ps.Add(At("Facilities", r.Row, "value"), "%v", err)
+			p.failed.add(name, capName)
 			continue
 		}
 		if u.Text != "" && !u.Dim.Equal(cp.Dim) {
 			ps.Add(At("Facilities", r.Row, "unit"), "unit %q does not fit %s (needs %s, got %s; e.g. %s)", u.Text, capName, cp.Dim, u.Dim, cp.Unit)
+			p.failed.add(name, capName)
 			continue
 		}
 		if !(v > 0) {
 			ps.Add(At("Facilities", r.Row, "value"), "%s must be positive, got %v", capName, v)
+			p.failed.add(name, capName)
 			continue
 		}
 		f.Caps[capName] = v
@@ -708,7 +741,9 @@ func (p *Plan) prepareLimits(ps *Problems) {
 			targets = []*Facility{nil}
 		}
 		for _, f := range targets {
-			if err := l.Check(p.dimResolver(f)); err != nil {
+			if err := l.Check(p.dimResolver(f)); errors.Is(err, errFailedName) {
+				break // reported at its own row
+			} else if err != nil {
 				where := ""
 				if f != nil {
 					where = " (for facility " + strconv.Quote(f.Name) + ")"
@@ -783,6 +818,9 @@ func (p *Plan) dimResolver(f *Facility) func(string) (feasibility.Dimension, err
 		}
 		if name == "g_level" { // every facility's g-level, 1 unless stated or tied
 			return feasibility.Dimension{}, nil
+		}
+		if p.failed.has(name) || f != nil && p.failed.has(f.Name, name) {
+			return feasibility.Dimension{}, errFailedName
 		}
 		return feasibility.Dimension{}, unknownName(name, func() []string { return p.names(f) })
 	}
@@ -933,6 +971,9 @@ func (p *Plan) prepareMeasures(ps *Problems) {
 func (p *Plan) checkDim(ps *Problems, e *feasibility.Expr, targets []*Facility, want feasibility.Dimension, exprCell, unitCell Cell, mismatch func(feasibility.Dimension) string) {
 	for _, f := range targets {
 		d, err := e.Dim(p.dimResolver(f))
+		if errors.Is(err, errFailedName) {
+			return // reported at its own row
+		}
 		if err != nil {
 			ps.Add(exprCell, "%v", err)
 			return

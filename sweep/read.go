@@ -46,6 +46,9 @@ func Load(p string) (*Study, error) {
 		}
 		return nil, fmt.Errorf("study %s: %w", p, err)
 	}
+	if what := notRegular(info.Mode()); what != "" && !info.IsDir() {
+		return nil, fmt.Errorf("study %s: it is %s, not a file or folder: a study is an .xlsx workbook or a folder of .csv sheets", p, what)
+	}
 	if info.IsDir() {
 		return loadCSV(os.DirFS(p), ".", p, filepath.Base(filepath.Clean(p)))
 	}
@@ -121,6 +124,11 @@ type sheetReader struct {
 	// flagged cells have been reported already (a formula without a
 	// cached value); a row holding one is not kept.
 	flagged map[place]bool
+	// units are the units in brackets in the header, by column index
+	// (see checkHeaderUnits); decimalComma is set for a CSV file
+	// separated by semicolons.
+	units        map[int]string
+	decimalComma bool
 }
 
 func newSheetReader(s *Study, sheet string, ps *Problems) *sheetReader {
@@ -234,7 +242,7 @@ func (r *sheetReader) row(n int, cells []string) bool {
 		return false
 	}
 	for i, v := range vals {
-		c := Cell{r.sheet, n, i + 1}
+		c, col := Cell{r.sheet, n, i + 1}, r.cols[i]
 		if !utf8.ValidString(v) {
 			r.add(c, "not UTF-8 text: save the sheet with UTF-8 encoding (\"CSV UTF-8\")")
 			bad = true
@@ -245,7 +253,15 @@ func (r *sheetReader) row(n int, cells []string) bool {
 			ch, _ := utf8.DecodeRuneInString(v[i:])
 			r.add(c, "the cell holds a control character (U+%04X): delete it", ch)
 			bad = true
+		} else if t, msg := r.tidyCell(col, v); msg != "" {
+			r.add(c, "%s", msg)
+			bad = true
+		} else {
+			vals[c.Col-1] = t
 		}
+	}
+	if !bad && !r.applyHeaderUnit(n, vals) {
+		bad = true
 	}
 	if !bad {
 		r.store(n, vals)
@@ -281,6 +297,9 @@ func (r *sheetReader) checkHeader(cells []string) bool {
 		} else {
 			r.add(c, "expected column %q, found %s", col, shorten(got))
 		}
+	}
+	if ok && !r.checkHeaderUnits(cells) {
+		return false
 	}
 	if !ok {
 		r.add(Cell{Sheet: r.sheet}, "row 1 must name the columns %s, in this order (a unit in brackets may follow a name; extra columns to the right are ignored); the sheet's rows were not read", strings.Join(r.cols, ", "))

@@ -42,6 +42,12 @@ func loadCSV(fsys fs.FS, dir, source, base string) (*Study, error) {
 			}
 			continue
 		}
+		if fi, err := fs.Stat(fsys, path.Join(dir, name)); err == nil && !fi.IsDir() {
+			if what := notRegular(fi.Mode()); what != "" {
+				ps.Add(Cell{Sheet: sheet}, "cannot read %s: it is %s, not a file: put the sheet's own file there", name, what)
+				continue
+			}
+		}
 		f, err := fsys.Open(path.Join(dir, name))
 		if err != nil {
 			ps.Add(Cell{Sheet: sheet}, "cannot read %s: %v", name, err)
@@ -98,6 +104,7 @@ func readCSVSheet(f io.Reader, name string, r *sheetReader) {
 	}
 	if bytes.IndexByte(head, ',') < 0 && bytes.IndexByte(head, ';') >= 0 {
 		comma = ';'
+		r.decimalComma = true // the separator of locales with a decimal comma
 	}
 	issues := quoteIssues(raw, comma)
 	cr := csv.NewReader(bytes.NewReader(raw))

@@ -42,7 +42,7 @@ func sampleStudy() *Study {
 			{Name: "minus", Value: "-x", ScalesAs: "none", Row: 10},
 			{Name: "at", Value: "@a", ScalesAs: "none", Row: 11},
 			{Name: "leading zero", Value: "007", ScalesAs: "none", Row: 12},
-			{Name: "tab\tinside", Value: "0.000001", ScalesAs: "none", Row: 13},
+			{Name: "tab inside", Value: "0.000001", ScalesAs: "none", Row: 13}, // a tab would be read back as a space (normSpace)
 		},
 		Media: []Candidate{
 			{Name: "fresh water", Entry: "fresh_water", Conditions: "15C", Row: 2},

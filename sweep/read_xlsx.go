@@ -33,7 +33,13 @@ func loadXLSX(p, base string) (*Study, error) {
 		ps.Add(Cell{Sheet: file}, "the workbook is larger than %d MiB; a study is far smaller", maxFileBytes>>20)
 		return finish(s, base, ps)
 	}
-	b, err := os.ReadFile(p)
+	b, err := readRegular(p, maxFileBytes)
+	if errors.Is(err, errTooLarge) {
+		s := newStudy(p)
+		var ps Problems
+		ps.Add(Cell{Sheet: file}, "the workbook is larger than %d MiB; a study is far smaller", maxFileBytes>>20)
+		return finish(s, base, ps)
+	}
 	if err != nil {
 		return nil, fmt.Errorf("study %s: %w", p, err)
 	}
@@ -46,9 +52,10 @@ func loadXLSX(p, base string) (*Study, error) {
 // Values are read with excelize's streaming row iterator, as raw cell
 // values: a number is its stored value, not its display format (so a cell
 // formatted "0.00" or as a currency still gives its full value), a formula
-// its cached value. Formulas without a cached value are found by a
-// streaming scan of the worksheet XML, since the iterator gives them as
-// empty cells.
+// its cached value. A number formatted as a date or a time is read as the
+// text a person typed (see cellText). Formulas without a cached value are
+// found by a streaming scan of the worksheet XML, since the iterator gives
+// them as empty cells.
 func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 	s := newStudy(source)
 	var ps Problems
@@ -140,7 +147,8 @@ func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 
 // readXLSXSheet reads one worksheet.
 func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, r *sheetReader) {
-	issues, err := scanSheet(part, len(r.cols), nStrings)
+	kinds := cellKinds{kind: styleKinds(f), at: map[place]cellKind{}}
+	issues, err := scanSheet(part, len(r.cols), nStrings, &kinds)
 	if errors.Is(err, errTooWide) {
 		for _, is := range issues {
 			r.add(is.at.in(r.sheet), "%s", is.msg)
@@ -158,6 +166,7 @@ func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, 
 		}
 		r.flagged[is.at] = true
 	}
+	use1904 := date1904(f)
 	rows, err := f.Rows(name)
 	if err != nil {
 		r.add(Cell{Sheet: r.sheet}, "cannot read the sheet: %v", err)
@@ -175,6 +184,7 @@ func readXLSXSheet(f *excelize.File, name string, part *zip.File, nStrings int, 
 			}
 			continue
 		}
+		typedCells(cells, n, kinds.at, use1904)
 		if !r.row(n, cells) {
 			return
 		}
@@ -213,9 +223,10 @@ type cellIssue struct {
 // text: a formula without a cached value (no <v> element), a formula whose
 // cached value is an error (#DIV/0!), and a reference to a shared string
 // that does not exist (nStrings is the number of shared strings). At most
-// maxSheetProblems are returned.
-func scanSheet(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
-	return scanSheetCells(part, cols, nStrings)
+// maxSheetProblems are returned. The same scan notes the cells whose
+// number format makes them dates, times or percentages in kinds.
+func scanSheet(part *zip.File, cols, nStrings int, kinds *cellKinds) ([]cellIssue, error) {
+	return scanSheetCells(part, cols, nStrings, kinds)
 }
 
 // MaxColumns is the widest a study sheet may be: its own columns and room
@@ -224,7 +235,7 @@ const MaxColumns = 256
 
 var errTooWide = errors.New("sheet too wide")
 
-func scanSheetCells(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
+func scanSheetCells(part *zip.File, cols, nStrings int, kinds *cellKinds) ([]cellIssue, error) {
 	rc, err := part.Open()
 	if err != nil {
 		return nil, err
@@ -271,6 +282,9 @@ func scanSheetCells(part *zip.File, cols, nStrings int) ([]cellIssue, error) {
 					return append(found, cellIssue{place{row, 0}, fmt.Sprintf("the sheet has a cell at %s, beyond column %s: a study sheet uses its first %d columns; delete the cells far to the right", cell, ColumnLetters(MaxColumns), len(Columns["Strategies"]))}), errTooWide
 				}
 				inCell, hasF, hasV, typ, value = true, false, false, attr(t, "t"), ""
+				if col <= cols && row <= MaxRows {
+					kinds.note(place{row, col}, typ, attr(t, "s"))
+				}
 			case "f":
 				hasF = hasF || inCell
 			case "v":

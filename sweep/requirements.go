@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"context"
 	"math"
 )
 
@@ -37,8 +38,8 @@ func (r Requirement) Shortfall(i int) float64 {
 }
 
 // requirements inverts every limit that names a capability of the
-// combination's facility.
-func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
+// combination's facility. It stops, returning nil, when ctx is done.
+func (x *combo) requirements(ctx context.Context, limits []compiled, us []float64) []Requirement {
 	if x.fac == nil {
 		return nil
 	}
@@ -66,9 +67,12 @@ func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
 					req.Values[i] = have * math.Pow(10, -(l.info.A+l.info.B*u)/e)
 				}
 			} else {
-				if !x.invertSampled(l, n, have, us, &req) {
+				if !x.invertSampled(ctx, l, n, have, us, &req) {
 					continue
 				}
+			}
+			if ctx.Err() != nil {
+				return nil
 			}
 			out = append(out, req)
 		}
@@ -78,7 +82,8 @@ func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
 
 // invertSampled finds the required capability of a limit that is not a
 // product of powers by bisection on the capability, in log, to 0.1 %.
-func (x *combo) invertSampled(l compiled, n string, have float64, us []float64, req *Requirement) bool {
+// It checks ctx every pointsPerCheck points and gives up when it is done.
+func (x *combo) invertSampled(ctx context.Context, l compiled, n string, have float64, us []float64, req *Requirement) bool {
 	forms := make(map[string]linForm, len(l.forms))
 	for k, v := range l.forms {
 		forms[k] = v
@@ -92,6 +97,9 @@ func (x *combo) invertSampled(l compiled, n string, have float64, us []float64, 
 	up := margin(u0, have*2) > margin(u0, have/2)
 	req.AtLeast = up
 	for i, u := range us {
+		if i%pointsPerCheck == 0 && ctx.Err() != nil {
+			return false
+		}
 		lo, hi := math.Log(have)-math.Log(1e6), math.Log(have)+math.Log(1e6)
 		okLo, okHi := margin(u, math.Exp(lo)) >= 0, margin(u, math.Exp(hi)) >= 0
 		if okLo == okHi {
@@ -130,3 +138,7 @@ func (r Requirement) FitEdges(grid []float64) []float64 {
 	}
 	return out
 }
+
+// pointsPerCheck is how many grid points a bisection over the grid solves
+// between two checks for an interrupt (a few milliseconds of work).
+const pointsPerCheck = 4096

@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"math/rand/v2"
@@ -67,6 +68,9 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 		switch {
 		case of == "":
 			it, ok := p.Items[in]
+			if !ok && p.failed.has(in) {
+				continue // reported at its own row
+			}
 			if !ok {
 				ps.Add(At("Uncertainty", r.Row, "input"), "no prototype item %q%s (name a candidate or a facility in the of column for their inputs)", in, feasibility.Suggest(in, p.ItemOrder))
 				continue
@@ -184,7 +188,8 @@ type InputGain struct {
 // axis value. The margins of products-of-powers limits are linear in the
 // log of every input, so each input's effect is found once (a decade's
 // change) and each draw is a sum; other limits keep their nominal set.
-func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
+// It returns nil when ctx is done (checked every drawsPerCheck draws).
+func (o *sweepOut) robust(ctx context.Context, us []float64, seed uint64, index int) *Robust {
 	x := o.combo
 	p := x.plan
 	var inputs []*Uncertain
@@ -235,6 +240,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 	deltas := make([][]float64, n)
 	src := rand.NewPCG(seed, uint64(index)+1)
 	for s := range deltas {
+		if s%drawsPerCheck == 0 && ctx.Err() != nil {
+			return nil
+		}
 		deltas[s] = make([]float64, len(inputs))
 		for i, u := range inputs {
 			f := u.draw(src)
@@ -253,6 +261,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 		}
 		A := make([]float64, nl)
 		for s := 0; s < n; s++ {
+			if s%drawsPerCheck == 0 && ctx.Err() != nil {
+				return nil, nil
+			}
 			for j, l := range o.limits {
 				A[j] = l.info.A
 				for i := range inputs {
@@ -338,6 +349,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 		return prob, fails
 	}
 	prob, fails := sample(-1)
+	if prob == nil {
+		return nil // interrupted
+	}
 	R.Probability = prob
 	R.MostFailing = make([]string, len(us))
 	for i := range us {
@@ -363,6 +377,9 @@ func (o *sweepOut) robust(us []float64, seed uint64, index int) *Robust {
 			continue
 		}
 		pi, _ := sample(i)
+		if pi == nil {
+			return nil // interrupted
+		}
 		R.Sensitivity = append(R.Sensitivity, InputGain{u.Label, width(probWindow(us, pi, R.Level)) - base})
 	}
 	sort.SliceStable(R.Sensitivity, func(a, b int) bool { return R.Sensitivity[a].Gain > R.Sensitivity[b].Gain })
@@ -401,3 +418,7 @@ func interp(u0, u1, p0, p1, level float64) float64 {
 	}
 	return u0 + (level-p0)/(p1-p0)*(u1-u0)
 }
+
+// drawsPerCheck is how many draws are sampled between two checks for an
+// interrupt.
+const drawsPerCheck = 1 << 15

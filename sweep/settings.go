@@ -95,6 +95,15 @@ func parseSettings(s *Study, ps *Problems) Settings {
 			return math.NaN()
 		}
 		x, err := strconv.ParseFloat(strings.TrimSpace(v.Value), 64)
+		if err != nil {
+			if y, ok := settingNumber(name, v.Value); ok {
+				return y
+			}
+			if msg := typedAsClock(v.Value); msg != "" {
+				ps.Add(v.Cell, "%s: %s", name, msg)
+				return math.NaN()
+			}
+		}
 		if err != nil || math.IsNaN(x) || math.IsInf(x, 0) {
 			ps.Add(v.Cell, "%s: %q is not a number", name, v.Value)
 			return math.NaN()
@@ -113,10 +122,13 @@ func parseSettings(s *Study, ps *Problems) Settings {
 	text := func(name string) string { v, _ := get(name); return strings.TrimSpace(v.Value) }
 
 	st.Name = text("name")
+	if strings.ContainsAny(st.Name, "\r\n") {
+		ps.Add(st.Cell("name"), "the study name holds a line break: put it on one line (it heads every output)")
+	}
 	if st.Name == "" {
 		st.Name = s.Name
 	}
-	st.Purpose = text("purpose")
+	st.Purpose = strings.Join(strings.Fields(text("purpose")), " ") // one paragraph in every output
 	st.ScaleFrom, st.ScaleTo = number("scale_from"), number("scale_to")
 	if !math.IsNaN(st.ScaleFrom) && !math.IsNaN(st.ScaleTo) {
 		c, _ := get("scale_from")

@@ -659,46 +659,52 @@ var placeLine = regexp.MustCompile(`^  ([A-Z][A-Za-z]*(![A-Z]*[0-9]+)?|[^ :]+\.(
 // TestHostileInputs runs every hostile case through the command.
 func TestHostileInputs(t *testing.T) {
 	for _, c := range hostileCases() {
-		t.Run(c.kind, func(t *testing.T) {
-			dir := t.TempDir()
-			args := c.build(t, dir)
-			code, stdout, stderr := hRun(args...)
-			if code != c.code {
-				t.Fatalf("exit %d, want %d\nstdout %s\nstderr %s", code, c.code, stdout, stderr)
-			}
-			lines := strings.Split(strings.TrimRight(stderr, "\n"), "\n")
-			last := lines[len(lines)-1]
-			if !strings.HasPrefix(last, "scaleplan: ") {
-				t.Errorf("the last line is not the command's own: %q", last)
-			}
-			found := false
-			for i, l := range lines[:len(lines)-1] {
-				switch {
-				case strings.HasSuffix(l, ":") && !strings.HasPrefix(l, " "):
-					// the study's name, before its problems
-				case placeLine.MatchString(l):
-					if strings.HasPrefix(l, "  "+c.place) && strings.Contains(l, c.want) && c.place != "" {
-						found = true
-					}
-				default:
-					t.Errorf("line %d is neither a study nor a problem with its place: %q", i+1, l)
-				}
-			}
-			if c.place == "" {
-				found = strings.Contains(last, c.want)
-			}
-			if !found {
-				t.Errorf("no problem at %q saying %q:\n%s", c.place, c.want, stderr)
-			}
-			if strings.Contains(stderr, "panic") || strings.Contains(stderr, "goroutine ") {
-				t.Errorf("a panic: %s", stderr)
-			}
-			hNoOutputs(t, dir)
-		})
+		t.Run(c.kind, func(t *testing.T) { hCheck(t, c) })
 	}
 	if n := len(hostileCases()); n < 20 {
 		t.Errorf("%d hostile cases, want at least 20", n)
 	}
+}
+
+// hCheck runs one hostile case through the command and checks its exit
+// status, that every problem line names its place, the wanted problem, no
+// panic and no output.
+func hCheck(t *testing.T, c hostileCase) {
+	t.Helper()
+	dir := t.TempDir()
+	args := c.build(t, dir)
+	code, stdout, stderr := hRun(args...)
+	if code != c.code {
+		t.Fatalf("exit %d, want %d\nstdout %s\nstderr %s", code, c.code, stdout, stderr)
+	}
+	lines := strings.Split(strings.TrimRight(stderr, "\n"), "\n")
+	last := lines[len(lines)-1]
+	if !strings.HasPrefix(last, "scaleplan: ") {
+		t.Errorf("the last line is not the command's own: %q", last)
+	}
+	found := false
+	for i, l := range lines[:len(lines)-1] {
+		switch {
+		case strings.HasSuffix(l, ":") && !strings.HasPrefix(l, " "):
+			// the study's name, before its problems
+		case placeLine.MatchString(l):
+			if strings.HasPrefix(l, "  "+c.place) && strings.Contains(l, c.want) && c.place != "" {
+				found = true
+			}
+		default:
+			t.Errorf("line %d is neither a study nor a problem with its place: %q", i+1, l)
+		}
+	}
+	if c.place == "" {
+		found = strings.Contains(last, c.want)
+	}
+	if !found {
+		t.Errorf("no problem at %q saying %q:\n%s", c.place, c.want, stderr)
+	}
+	if strings.Contains(stderr, "panic") || strings.Contains(stderr, "goroutine ") {
+		t.Errorf("a panic: %s", stderr)
+	}
+	hNoOutputs(t, dir)
 }
 
 // hNoOutputs checks that a failed run wrote nothing into dir/out and left
