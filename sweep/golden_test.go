@@ -137,12 +137,19 @@ func scenarioGolden(t *testing.T) map[string][]goldenCombo {
 	if err != nil {
 		t.Fatal(err)
 	}
-	out := map[string][]goldenCombo{}
+	studies := map[string]*Study{}
 	for _, sc := range list {
-		res := runStudy(t, scenario(t, sc.Name))
+		studies[sc.Name] = scenario(t, sc.Name)
+	}
+	// A small synthetic study: a facility capability as second axis and a
+	// limit that is a sum (the run length).
+	studies["synthetic"] = Synthetic(60, 7, 3, 4)
+	out := map[string][]goldenCombo{}
+	for name, s := range studies {
+		res := runStudy(t, s)
 		for _, sr := range res.Strategies {
 			for _, c := range append(append([]*ComboResult(nil), sr.Combos...), sr.Joint...) {
-				out[sc.Name] = append(out[sc.Name], goldenOf(c, c == sr.Best))
+				out[name] = append(out[name], goldenOf(c, c == sr.Best))
 			}
 		}
 	}
