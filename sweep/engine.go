@@ -95,6 +95,8 @@ type ComboResult struct {
 	// scale over the grid, one row per axis value (in the measure's unit).
 	AxisMeasures map[string][][]float64
 	Err          string
+	// axis sweeps the second axis again on demand (AxisMarginRows).
+	axis *axisSweep
 }
 
 // LimitInfo describes a limit applied to a combination.
@@ -249,20 +251,30 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 	if p.AxisValues != nil && p.axisApplies(c, f) {
 		axes = p.AxisValues
 	}
+	// Every axis value's window from the compiled limits; the grid is
+	// swept at the chosen value only (analytic.go).
+	ax := &axisSweep{plan: p, cas: c, medium: m, material: mat, fac: f, axes: axes, us: us}
+	if len(axes) > 1 && !isCondition(p.Settings.Axis) {
+		ax.lp = &limitPlan{}
+	}
 	bestI := -1
+	var bestWindow Window
 	var best *sweepOut
-	var bestLimiting []int
 	cache := sampleCache{}
-	scratch := make([]int, len(us))
 	for i, a := range axes {
 		if err := ctx.Err(); err != nil {
 			r.Err = err.Error()
 			return r
 		}
-		x, err := p.newCombo(c, m, mat, f, a)
+		x, err := ax.combo(a)
 		if err != nil {
 			r.Err = err.Error()
 			return r
+		}
+		x.windowOnly = len(axes) > 1
+		var scratch []int
+		if !x.windowOnly {
+			scratch = make([]int, len(us))
 		}
 		out, err := x.sweep(ctx, us, cache, scratch)
 		if err != nil {
@@ -270,27 +282,28 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 			return r
 		}
 		if len(axes) > 1 {
-			r.AxisMargins = append(r.AxisMargins, out.margins)
 			r.AxisWindows = append(r.AxisWindows, out.window)
-			for _, m := range p.Measures {
-				if r.AxisMeasures == nil {
-					r.AxisMeasures = map[string][][]float64{}
-				}
-				r.AxisMeasures[m.Name] = append(r.AxisMeasures[m.Name], x.measureGrid(m, us))
-			}
 		}
-		if best == nil || better(out.window, best.window) {
-			best, bestI = out, i
-			best.combo = x
-			if bestLimiting == nil {
-				bestLimiting = make([]int, len(us))
-			}
-			copy(bestLimiting, scratch)
+		if bestI < 0 || better(out.window, bestWindow) {
+			bestI, bestWindow = i, out.window
+		}
+		if !x.windowOnly {
+			best = out
 		}
 	}
-	best.limiting = bestLimiting
+	if best == nil {
+		x, err := ax.combo(axes[bestI])
+		if err == nil {
+			best, err = x.sweep(ctx, us, cache, make([]int, len(us)))
+		}
+		if err != nil {
+			r.Err = err.Error()
+			return r
+		}
+	}
 	if len(axes) > 1 {
 		r.Axis = axes[bestI]
+		r.axis = ax
 	}
 	best.requirements = best.combo.requirements(best.limits, us)
 	best.fill(r)
@@ -480,7 +493,7 @@ func formatSI(v float64, unit string) string {
 
 // sweep evaluates every limit over the grid and finds the window.
 func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limiting []int) (*sweepOut, error) {
-	limits, notes, err := x.limitsFor()
+	limits, notes, err := x.compiledLimits()
 	if err != nil {
 		return nil, err
 	}
@@ -492,7 +505,7 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	win := limitWindow(limits, us, nil)
 	// The largest model any facility could take: the window of the limits
 	// that name no capability of this facility.
-	if x.fac != nil {
+	if x.fac != nil && !x.windowOnly {
 		free := limitWindow(limits, us, func(l compiled) bool {
 			for _, n := range l.lim.Names() {
 				if _, ok := x.fac.Caps[n]; ok {
@@ -534,6 +547,9 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 		}
 	}
 	out.window = toWindow(win)
+	if x.windowOnly {
+		return out, nil
+	}
 	// Margins on the grid, for the maps: one pass per limit over the grid,
 	// a linear form for products of powers, so the inner loop is a
 	// multiply-add with no allocation.

@@ -37,6 +37,10 @@ type combo struct {
 	// own value of each property, from the candidate that supplies it.
 	pert       map[string]float64
 	candFactor map[string]float64
+	// limitPlan, when set, holds the limits compiled once for every axis
+	// value (analytic.go); windowOnly stops sweep at the window.
+	limitPlan  *limitPlan
+	windowOnly bool
 }
 
 // factor returns the multiplier a draw puts on an input (1 when none).
