@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"context"
+	"fmt"
 	"math"
 )
 
@@ -183,4 +184,40 @@ func (c *ComboResult) AxisMeasureRows() map[string][][]float64 {
 		return c.AxisMeasures
 	}
 	return c.axis.measures()
+}
+
+// costFunc is cost with the forms of every cost measure resolved once:
+// the same arithmetic, without resolving names at every scale.
+func (x *combo) costFunc() func(kL float64) (float64, error) {
+	type term struct {
+		c     *PlanCost
+		forms map[string]linForm
+		err   error
+	}
+	var terms []term
+	for _, c := range x.costs() {
+		t := term{c: c, forms: map[string]linForm{}}
+		for _, n := range c.Measure.Names() {
+			f, err := x.form(n)
+			if err != nil {
+				t.err = fmt.Errorf("Costs!D%d: %v", c.Row, err)
+				break
+			}
+			t.forms[n] = f
+		}
+		terms = append(terms, t)
+	}
+	return func(kL float64) (float64, error) {
+		ln := math.Log(kL)
+		total := 0.0
+		for i := range terms {
+			t := &terms[i]
+			if t.err != nil {
+				return 0, t.err
+			}
+			v := t.c.Measure.Eval(func(n string) float64 { return t.forms[n].at(ln) })
+			total += t.c.Coefficient * v / t.c.Per.Factor
+		}
+		return total, nil
+	}
 }

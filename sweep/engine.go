@@ -722,7 +722,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 		return
 	}
 	r.Largest = r.Window.Largest()
-	costAt := func(kL float64) (float64, error) { return x.cost(kL) }
+	costAt := x.costFunc()
 	hasCost := len(x.costs()) > 0
 	if hasCost {
 		r.CostCurve = make([]float64, len(p.Grid))
@@ -887,25 +887,7 @@ func (x *combo) costs() []*PlanCost {
 }
 
 // cost is the campaign cost at a length scale.
-func (x *combo) cost(kL float64) (float64, error) {
-	ln := math.Log(kL)
-	total := 0.0
-	for _, c := range x.costs() {
-		var ferr error
-		v := c.Measure.Eval(func(n string) float64 {
-			f, err := x.form(n)
-			if err != nil && ferr == nil {
-				ferr = err
-			}
-			return f.at(ln)
-		})
-		if ferr != nil {
-			return 0, fmt.Errorf("Costs!D%d: %v", c.Row, ferr)
-		}
-		total += c.Coefficient * v / c.Per.Factor
-	}
-	return total, nil
-}
+func (x *combo) cost(kL float64) (float64, error) { return x.costFunc()(kL) }
 
 // libraryMatches lists the library entries whose property lies within
 // the study's tolerance of the range a model needs.

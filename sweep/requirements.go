@@ -2,6 +2,9 @@ package sweep
 
 import (
 	"math"
+	"slices"
+
+	"scaleplan/feasibility"
 )
 
 // Requirement is a facility capability read the other way: the value a
@@ -18,7 +21,9 @@ type Requirement struct {
 	// Have is the facility's own value.
 	Have float64
 	// Exact is true when the requirement comes from inverting a
-	// products-of-powers limit; otherwise it was found by bisection.
+	// products-of-powers limit, or a limit where the capability stands
+	// alone in a side that is a product of powers; otherwise it was
+	// found by bisection.
 	Exact bool
 }
 
@@ -65,6 +70,9 @@ func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
 					// margin moves by e·Δlog10(capability): solve margin = 0.
 					req.Values[i] = have * math.Pow(10, -(l.info.A+l.info.B*u)/e)
 				}
+			} else if eff, ok := isolated(l, n); ok {
+				req.Exact, req.AtLeast = true, eff > 0
+				x.invertIsolated(l, eff, have, us, &req)
 			} else {
 				if !x.invertSampled(l, n, have, us, &req) {
 					continue
@@ -74,6 +82,56 @@ func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
 		}
 	}
 	return out
+}
+
+// isolated reports whether capability n stands in one side of a limit
+// that is not a product of powers, with that side a product of powers and
+// n nowhere else ("a·b + c·d <= tank_length"). The margin then moves by
+// eff·Δlog10 n exactly, whatever the other side: eff is n's exponent,
+// with the sign that makes it grow the margin.
+func isolated(l compiled, n string) (eff float64, ok bool) {
+	for _, side := range []struct {
+		e, other *feasibility.Expr
+		sign     float64 // +1 where a larger side grows the margin
+	}{{l.lim.Right, l.lim.Left, 1}, {l.lim.Left, l.lim.Right, -1}} {
+		if slices.Contains(side.other.Names(), n) {
+			continue
+		}
+		_, powers, ok := side.e.Product()
+		if !ok {
+			continue
+		}
+		for _, p := range powers {
+			if p.Name == n {
+				if !l.lim.Upper {
+					side.sign = -side.sign
+				}
+				return side.sign * p.Exp.Float64(), true
+			}
+		}
+	}
+	return 0, false
+}
+
+// invertIsolated solves an isolated capability's margin for zero at every
+// grid point: required = have · 10^(−margin/eff). Like the bisection it
+// replaces, it gives NaN where the requirement lies beyond six decades of
+// the facility's value or the margin is not finite.
+func (x *combo) invertIsolated(l compiled, eff, have float64, us []float64, req *Requirement) {
+	for i, u := range us {
+		m := 0.0
+		if l.vals != nil {
+			m = l.vals[i]
+		} else {
+			m = l.margin(u)
+		}
+		t := -m / eff // log10(required / have)
+		if math.IsNaN(t) || t < -6 || t > 6 {
+			req.Values[i] = math.NaN()
+			continue
+		}
+		req.Values[i] = have * math.Pow(10, t)
+	}
 }
 
 // invertSampled finds the required capability of a limit that is not a
