@@ -37,7 +37,7 @@ unknown command or flag, a missing required flag or flag value).
 
 # run
 
-	scaleplan run [STUDY ...] [--out DIR] [--format png|svg|pdf] [--json] [--max-points N]
+	scaleplan run [STUDY ...] [--out DIR] [--format png|svg|pdf] [--json] [--max-points N] [--no-files]
 
 Each STUDY is an .xlsx workbook or a folder of .csv sheets (the layout is in
 the README); with none, the built-in scenarios run. Studies run in
@@ -50,6 +50,10 @@ Outputs are written to a hidden staging folder and moved into place when
 complete, so an interrupt leaves nothing half-written; an output folder
 that would hold an input is refused. A sweep larger than max_points
 (1e8 by default) is refused; --max-points raises the bound.
+
+With --no-files the studies are swept and the table (or the JSON, without
+its outputs key) is printed, but nothing is written and no output folder is
+made: for scripts that read the summary, and for timing the sweep alone.
 
 # init and check
 
