@@ -56,27 +56,41 @@ func (lp *limitPlan) compile(limits []compiled, notes []string) {
 }
 
 // at returns the compiled limits with the forms of combination x: the
-// same arithmetic as limitsFor, without parsing or collecting again.
+// same arithmetic as limitsFor, without parsing or collecting again. A
+// limit whose names resolve to the forms they had when compiled keeps its
+// forms and A, B as they are (only the forms the axis value changes are
+// re-evaluated).
 func (lp *limitPlan) at(x *combo) ([]compiled, []string, error) {
 	out := make([]compiled, len(lp.limits))
+	var buf [8]linForm
 	for j := range lp.limits {
 		c := lp.limits[j]
-		forms := make(map[string]linForm, len(lp.names[j]))
+		fs := buf[:0]
+		same := true
 		for _, n := range lp.names[j] {
 			f, err := x.form(n)
 			if err != nil {
 				return nil, nil, err
 			}
-			forms[n] = f
+			fs = append(fs, f)
+			if was, ok := c.forms[n]; !ok || was != f {
+				same = false
+			}
 		}
-		c.forms = forms
-		if c.info.Linear {
-			c.info.A, c.info.B = lp.k[j], 0
-			for i, t := range c.terms {
-				e := lp.exps[j][i]
-				f := forms[t.Name]
-				c.info.A += e * f.C / math.Ln10
-				c.info.B += e * f.E
+		if !same {
+			forms := make(map[string]linForm, len(fs))
+			for i, n := range lp.names[j] {
+				forms[n] = fs[i]
+			}
+			c.forms = forms
+			if c.info.Linear {
+				c.info.A, c.info.B = lp.k[j], 0
+				for i, t := range c.terms {
+					e := lp.exps[j][i]
+					f := forms[t.Name]
+					c.info.A += e * f.C / math.Ln10
+					c.info.B += e * f.E
+				}
 			}
 		}
 		out[j] = c
@@ -220,4 +234,39 @@ func (x *combo) costFunc() func(kL float64) (float64, error) {
 		}
 		return total, nil
 	}
+}
+
+// choose finds the window at every axis value and picks the one that
+// allows the largest model (then the widest window). With one axis value
+// the grid is swept at once and best is that sweep; with several, only
+// windows are found and best is nil (sweep the chosen value after).
+func (a *axisSweep) choose(ctx context.Context, cache sampleCache) (bestI int, windows []Window, best *sweepOut, err error) {
+	bestI = -1
+	var bestWindow Window
+	for i, v := range a.axes {
+		if err := ctx.Err(); err != nil {
+			return 0, nil, nil, err
+		}
+		x, err := a.combo(v)
+		if err != nil {
+			return 0, nil, nil, err
+		}
+		x.windowOnly = len(a.axes) > 1
+		var scratch []int
+		if !x.windowOnly {
+			scratch = make([]int, len(a.us))
+		}
+		out, err := x.sweep(ctx, a.us, cache, scratch)
+		if err != nil {
+			return 0, nil, nil, err
+		}
+		windows = append(windows, out.window)
+		if bestI < 0 || better(out.window, bestWindow) {
+			bestI, bestWindow = i, out.window
+		}
+		if !x.windowOnly {
+			best = out
+		}
+	}
+	return bestI, windows, best, nil
 }

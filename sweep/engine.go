@@ -257,39 +257,14 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 	if len(axes) > 1 && !isCondition(p.Settings.Axis) {
 		ax.lp = &limitPlan{}
 	}
-	bestI := -1
-	var bestWindow Window
-	var best *sweepOut
 	cache := sampleCache{}
-	for i, a := range axes {
-		if err := ctx.Err(); err != nil {
-			r.Err = err.Error()
-			return r
-		}
-		x, err := ax.combo(a)
-		if err != nil {
-			r.Err = err.Error()
-			return r
-		}
-		x.windowOnly = len(axes) > 1
-		var scratch []int
-		if !x.windowOnly {
-			scratch = make([]int, len(us))
-		}
-		out, err := x.sweep(ctx, us, cache, scratch)
-		if err != nil {
-			r.Err = err.Error()
-			return r
-		}
-		if len(axes) > 1 {
-			r.AxisWindows = append(r.AxisWindows, out.window)
-		}
-		if bestI < 0 || better(out.window, bestWindow) {
-			bestI, bestWindow = i, out.window
-		}
-		if !x.windowOnly {
-			best = out
-		}
+	bestI, windows, best, err := ax.choose(ctx, cache)
+	if err != nil {
+		r.Err = err.Error()
+		return r
+	}
+	if len(axes) > 1 {
+		r.AxisWindows = windows
 	}
 	if best == nil {
 		x, err := ax.combo(axes[bestI])

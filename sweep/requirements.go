@@ -42,19 +42,66 @@ func (r Requirement) Shortfall(i int) float64 {
 }
 
 // requirements inverts every limit that names a capability of the
-// combination's facility.
+// combination's facility, at every grid scale.
 func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
-	if x.fac == nil {
+	forms := x.requirementForms(limits)
+	if forms == nil {
 		return nil
 	}
 	var out []Requirement
+	for _, rf := range forms {
+		req := rf.req
+		req.Values = make([]float64, len(us))
+		switch rf.how {
+		case solvedLinear:
+			A, B := rf.l.info.A, rf.l.info.B
+			for i, u := range us {
+				// margin moves by e·Δlog10(capability): solve margin = 0.
+				req.Values[i] = req.Have * math.Pow(10, -(A+B*u)/rf.e)
+			}
+		case solvedIsolated:
+			x.invertIsolated(rf.l, rf.e, req.Have, us, &req)
+		default:
+			if !x.invertSampled(rf.l, req.Capability, req.Have, us, &req) {
+				continue
+			}
+		}
+		out = append(out, req)
+	}
+	return out
+}
+
+// How a requirement is solved.
+const (
+	solvedLinear   = iota // a products-of-powers limit: log-linear in log kL
+	solvedIsolated        // the capability alone in a side that is a product of powers
+	solvedBisected        // otherwise, by bisection at every scale
+)
+
+// requirementForm is a requirement before it is evaluated on the grid:
+// which limit and capability, and how it is solved (for a products-of-
+// powers limit, log10 required = log10 have − (A + B·log10 kL)/e).
+type requirementForm struct {
+	req Requirement // without Values
+	l   compiled
+	how int
+	e   float64 // the capability's exponent in the margin
+}
+
+// requirementForms finds, from the compiled limits alone (without the
+// grid), every capability requirement and how it is solved.
+func (x *combo) requirementForms(limits []compiled) []requirementForm {
+	if x.fac == nil {
+		return nil
+	}
+	out := []requirementForm{}
 	for _, l := range limits {
 		for _, n := range l.lim.Names() {
 			have, ok := x.fac.Caps[n]
 			if !ok {
 				continue
 			}
-			req := Requirement{Capability: n, Unit: x.fac.CapUnits[n], Limit: l.info.Name, Have: have, Values: make([]float64, len(us))}
+			rf := requirementForm{req: Requirement{Capability: n, Unit: x.fac.CapUnits[n], Limit: l.info.Name, Have: have}, l: l, how: solvedBisected}
 			if l.info.Linear {
 				e := 0.0
 				for _, t := range l.terms {
@@ -65,20 +112,13 @@ func (x *combo) requirements(limits []compiled, us []float64) []Requirement {
 				if e == 0 {
 					continue
 				}
-				req.Exact, req.AtLeast = true, e > 0
-				for i, u := range us {
-					// margin moves by e·Δlog10(capability): solve margin = 0.
-					req.Values[i] = have * math.Pow(10, -(l.info.A+l.info.B*u)/e)
-				}
+				rf.how, rf.e = solvedLinear, e
+				rf.req.Exact, rf.req.AtLeast = true, e > 0
 			} else if eff, ok := isolated(l, n); ok {
-				req.Exact, req.AtLeast = true, eff > 0
-				x.invertIsolated(l, eff, have, us, &req)
-			} else {
-				if !x.invertSampled(l, n, have, us, &req) {
-					continue
-				}
+				rf.how, rf.e = solvedIsolated, eff
+				rf.req.Exact, rf.req.AtLeast = true, eff > 0
 			}
-			out = append(out, req)
+			out = append(out, rf)
 		}
 	}
 	return out
