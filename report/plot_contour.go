@@ -71,23 +71,19 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 	if pickRows != nil {
 		pickC = sr.Best
 	} else {
+		// The combination that comes closest to feasible; its rows are
+		// swept again only once it is chosen.
 		bestPeak := math.Inf(-1)
 		for _, c := range sr.Combos {
-			rows := rowsOf(c)
-			if rows == nil {
+			if c == nil || len(c.AxisWindows) < 2 && len(c.AxisMargins) < 2 {
 				continue
 			}
-			pk := math.Inf(-1)
-			for _, row := range rows {
-				for _, v := range row {
-					if v > pk {
-						pk = v
-					}
-				}
+			if pk := c.AxisMarginPeak(); pickC == nil || pk > bestPeak {
+				pickC, bestPeak = c, pk
 			}
-			if pickC == nil || pk > bestPeak {
-				pickC, pickRows, bestPeak = c, rows, pk
-			}
+		}
+		if pickRows = rowsOf(pickC); pickRows == nil {
+			pickC = nil
 		}
 	}
 	if pickC == nil {

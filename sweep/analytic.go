@@ -141,21 +141,31 @@ func (a *axisSweep) combo(v float64) (*combo, error) {
 	return x, nil
 }
 
+// each sweeps the grid at every axis value and hands the margins to fn
+// (the slice is fn's to keep); false if a value fails.
+func (a *axisSweep) each(fn func(i int, margins []float64)) bool {
+	cache := sampleCache{}
+	limiting := make([]int, len(a.us))
+	for i, v := range a.axes {
+		x, err := a.combo(v)
+		if err != nil {
+			return false
+		}
+		out, err := x.sweep(context.Background(), a.us, cache, limiting)
+		if err != nil {
+			return false
+		}
+		fn(i, out.margins)
+	}
+	return true
+}
+
 // margins sweeps the grid at every axis value and returns the margins,
 // one row per axis value (nil if a value fails).
 func (a *axisSweep) margins() [][]float64 {
 	rows := make([][]float64, len(a.axes))
-	cache := sampleCache{}
-	for i, v := range a.axes {
-		x, err := a.combo(v)
-		if err != nil {
-			return nil
-		}
-		out, err := x.sweep(context.Background(), a.us, cache, make([]int, len(a.us)))
-		if err != nil {
-			return nil
-		}
-		rows[i] = out.margins
+	if !a.each(func(i int, m []float64) { rows[i] = m }) {
+		return nil
 	}
 	return rows
 }
@@ -188,6 +198,27 @@ func (c *ComboResult) AxisMarginRows() [][]float64 {
 		return c.AxisMargins
 	}
 	return c.axis.margins()
+}
+
+// AxisMarginPeak returns, with a second axis, the largest margin over the
+// grid and the axis (-Inf without an axis), keeping no rows: how close to
+// feasible the combination comes.
+func (c *ComboResult) AxisMarginPeak() float64 {
+	pk := math.Inf(-1)
+	if c.AxisMargins != nil || c.axis == nil {
+		for _, row := range c.AxisMargins {
+			for _, v := range row {
+				pk = math.Max(pk, v)
+			}
+		}
+		return pk
+	}
+	c.axis.each(func(_ int, m []float64) {
+		for _, v := range m {
+			pk = math.Max(pk, v)
+		}
+	})
+	return pk
 }
 
 // AxisMeasureRows returns, with a second axis, each study measure at model
