@@ -162,7 +162,8 @@ def sweep_combo(c, u, lnk, keep_margins):
             best = i
     res.update(best=best, axis=axes[best]["value"], window=windows[best])
     if keep_margins and mins is not None:
-        res["margins"], res["limiting"] = mins[best], argmins[best]
+        # Copies: a row view would keep every axis value's margins alive.
+        res["margins"], res["limiting"] = mins[best].copy(), argmins[best].copy()
     return res
 
 
