@@ -12,18 +12,7 @@ import (
 // (2,000 kL points × 100 tank depths × 40 waters × 4 strategies) and
 // writes every output (workbook, maps, memo), as `scaleplan run` does.
 func BenchmarkSyntheticEndToEnd(b *testing.B) {
-	lib, err := materials.Default()
-	if err != nil {
-		b.Fatal(err)
-	}
-	cat, err := sweep.NewFacilityCatalog()
-	if err != nil {
-		b.Fatal(err)
-	}
-	p, err := sweep.Prepare(sweep.Synthetic(2000, 100, 40, 4), lib, cat)
-	if err != nil {
-		b.Fatal(err)
-	}
+	p := syntheticPlan(b, 2000, 100, 40, 4)
 	dir := b.TempDir()
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
@@ -35,4 +24,22 @@ func BenchmarkSyntheticEndToEnd(b *testing.B) {
 			b.Fatal(err)
 		}
 	}
+}
+
+// syntheticPlan prepares the synthetic study of the given size.
+func syntheticPlan(b *testing.B, points, axis, cands, strats int) *sweep.Plan {
+	b.Helper()
+	lib, err := materials.Default()
+	if err != nil {
+		b.Fatal(err)
+	}
+	cat, err := sweep.NewFacilityCatalog()
+	if err != nil {
+		b.Fatal(err)
+	}
+	p, err := sweep.Prepare(sweep.Synthetic(points, axis, cands, strats), lib, cat)
+	if err != nil {
+		b.Fatal(err)
+	}
+	return p
 }

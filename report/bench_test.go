@@ -9,25 +9,12 @@ import (
 
 	"github.com/xuri/excelize/v2"
 
-	"scaleplan/materials"
 	"scaleplan/sweep"
 )
 
 func syntheticResult(b *testing.B) *sweep.Result {
 	b.Helper()
-	lib, err := materials.Default()
-	if err != nil {
-		b.Fatal(err)
-	}
-	cat, err := sweep.NewFacilityCatalog()
-	if err != nil {
-		b.Fatal(err)
-	}
-	p, err := sweep.Prepare(sweep.Synthetic(2000, 0, 40, 4), lib, cat)
-	if err != nil {
-		b.Fatal(err)
-	}
-	res, err := p.Run(context.Background())
+	res, err := syntheticPlan(b, 2000, 0, 40, 4).Run(context.Background())
 	if err != nil {
 		b.Fatal(err)
 	}

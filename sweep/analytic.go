@@ -301,3 +301,12 @@ func (a *axisSweep) choose(ctx context.Context, cache sampleCache) (bestI int, w
 	}
 	return bestI, windows, best, nil
 }
+
+// marginAt is a limit's margin at grid point i (u = log10 kL there), from
+// its sampled margins when it has them.
+func (l *compiled) marginAt(i int, u float64) float64 {
+	if l.vals != nil {
+		return l.vals[i]
+	}
+	return l.margin(u)
+}

@@ -577,13 +577,7 @@ func marginGrid(limits []compiled, us, m []float64, arg []int) {
 			continue
 		}
 		for i, u := range us {
-			v := 0.0
-			if l.vals != nil {
-				v = l.vals[i]
-			} else {
-				v = l.margin(u)
-			}
-			if v < m[i] {
+			if v := l.marginAt(i, u); v < m[i] {
 				m[i], arg[i] = v, j
 			}
 		}

@@ -159,13 +159,7 @@ func isolated(l compiled, n string) (eff float64, ok bool) {
 // the facility's value or the margin is not finite.
 func (x *combo) invertIsolated(l compiled, eff, have float64, us []float64, req *Requirement) {
 	for i, u := range us {
-		m := 0.0
-		if l.vals != nil {
-			m = l.vals[i]
-		} else {
-			m = l.margin(u)
-		}
-		t := -m / eff // log10(required / have)
+		t := -l.marginAt(i, u) / eff // log10(required / have)
 		if math.IsNaN(t) || t < -6 || t > 6 {
 			req.Values[i] = math.NaN()
 			continue
