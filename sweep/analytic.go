@@ -208,14 +208,18 @@ func (c *ComboResult) AxisMarginPeak() float64 {
 	if c.AxisMargins != nil || c.axis == nil {
 		for _, row := range c.AxisMargins {
 			for _, v := range row {
-				pk = math.Max(pk, v)
+				if v > pk {
+					pk = v
+				}
 			}
 		}
 		return pk
 	}
 	c.axis.each(func(_ int, m []float64) {
 		for _, v := range m {
-			pk = math.Max(pk, v)
+			if v > pk {
+				pk = v
+			}
 		}
 	})
 	return pk

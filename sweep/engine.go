@@ -85,8 +85,10 @@ type ComboResult struct {
 	Params feasibility.Values
 	// Margins holds the margin of every grid point (decades) and Limiting
 	// the index into Limits of the limit that gives it (-1 for a
-	// similarity condition); with a second axis, AxisMargins holds one
-	// row per axis value.
+	// similarity condition), at the chosen axis value. With a second
+	// axis, AxisMarginRows gives one row per axis value, computed on
+	// demand: the sweep leaves AxisMargins and AxisMeasures nil (a result
+	// built by hand may set them).
 	Margins     []float64
 	Limiting    []int
 	AxisMargins [][]float64
