@@ -27,7 +27,7 @@ func BenchmarkSyntheticEndToEnd(b *testing.B) {
 }
 
 // syntheticPlan prepares the synthetic study of the given size.
-func syntheticPlan(b *testing.B, points, axis, cands, strats int) *sweep.Plan {
+func syntheticPlan(b testing.TB, points, axis, cands, strats int) *sweep.Plan {
 	b.Helper()
 	lib, err := materials.Default()
 	if err != nil {
