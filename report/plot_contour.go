@@ -36,6 +36,9 @@ type ContourMap struct {
 	// Iso are the study's measures drawn as iso-lines (dotted), each with
 	// log10 of its value on the same points as Z and the values drawn.
 	Iso []IsoMeasure
+	// Edges are the window's exact edges traced across the axis (white
+	// dashes).
+	Edges []EdgeLine
 }
 
 // IsoMeasure is a study measure over the contour map.
@@ -97,6 +100,7 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 	for _, v := range cm.Y {
 		cm.YLog = cm.YLog && v > 0
 	}
+	cm.Edges = windowEdgeLines(pickC.AxisWindows, p.AxisValues, yi)
 	// Thin the rows like the columns: each kept row takes the smallest
 	// margin of the rows it stands for.
 	cols := make([][]float64, len(pickRows))
@@ -242,6 +246,9 @@ func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
 	if len(cm.Iso) > 0 {
 		title += "\ndotted: iso-lines of the study's measures at model scale, each labelled with its value"
 	}
+	if len(cm.Edges) > 0 {
+		title += "\nwhite dashes: the window's edges at their exact scales"
+	}
 	p := newPlot(title, cm.X[0], cm.X[len(cm.X)-1])
 	p.Y.Label.Text = cm.Axis
 	if cm.Unit == "k = prototype/model" {
@@ -259,7 +266,7 @@ func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
 		p.Y.Scale = plot.LogScale{}
 		p.Y.Tick.Marker = logTicks{format: plainNumber}
 	}
-	p.Add(&contourPlotter{cm: cm})
+	p.Add(&contourPlotter{cm: cm}, edgeLinesPlotter{cm.Edges})
 	main, strip := splitRight(inset(dc), contourBarW)
 	p.Draw(main)
 	data := p.DataCanvas(main)

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"testing"
+
+	"scaleplan/sweep"
 )
 
 // TestThinMargins checks the buckets by hand: 9 points to 3 samples at
@@ -26,5 +28,30 @@ func TestThinMargins(t *testing.T) {
 	}
 	if idx := displayIndices(10 * DisplayColumns); len(idx) != DisplayColumns || idx[0] != 0 || idx[len(idx)-1] != 10*DisplayColumns-1 {
 		t.Errorf("a long series keeps %d samples from %d to %d", len(idx), idx[0], idx[len(idx)-1])
+	}
+}
+
+// TestWindowEdgeLines traces hand-made windows over four axis values: the
+// large-model edge set by one limit at the first two values and another
+// at the third makes two lines; the small-model edge set by the sweep's
+// range is left out; an empty window breaks the lines.
+func TestWindowEdgeLines(t *testing.T) {
+	w := func(lo, hi float64, loL, hiL string) sweep.Window {
+		return sweep.Window{{Lo: lo, Hi: hi, LoLimit: loL, HiLimit: hiL}}
+	}
+	windows := []sweep.Window{
+		w(2, 50, "blockage", sweep.RangeLimit),
+		w(3, 40, "blockage", "speed"),
+		w(4, 30, "depth", "speed"),
+		nil,
+	}
+	axis := []float64{1, 2, 3, 4}
+	got := windowEdgeLines(windows, axis, []int{0, 1, 2, 3})
+	want := "[{blockage [2 3] [1 2]} {depth [4] [3]} {speed [40 30] [2 3]}]"
+	if fmt.Sprint(got) != want {
+		t.Errorf("edge lines %v, want %s", got, want)
+	}
+	if got := windowEdgeLines(windows[:2], axis, []int{0, 1}); got != nil {
+		t.Errorf("windows not one per axis value give %v, want none", got)
 	}
 }
