@@ -144,6 +144,13 @@ func scenarioGolden(t *testing.T) map[string][]goldenCombo {
 	// A small synthetic study: a facility capability as second axis and a
 	// limit that is a sum (the run length).
 	studies["synthetic"] = Synthetic(60, 7, 3, 4)
+	// A medium condition as second axis (limits compiled per axis value).
+	tt := scenario(t, "tug")
+	tt.Settings["axis"] = Setting{Name: "axis", Value: "temperature", Cell: Cell{"Study", 40, 2}}
+	tt.Settings["axis_from"] = Setting{Name: "axis_from", Value: "5", Unit: "C", Cell: Cell{"Study", 41, 2}}
+	tt.Settings["axis_to"] = Setting{Name: "axis_to", Value: "30", Unit: "C", Cell: Cell{"Study", 42, 2}}
+	tt.Settings["axis_points"] = Setting{Name: "axis_points", Value: "6", Cell: Cell{"Study", 43, 2}}
+	studies["tug-temperature-axis"] = tt
 	out := map[string][]goldenCombo{}
 	for name, s := range studies {
 		res := runStudy(t, s)
