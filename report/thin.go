@@ -15,7 +15,8 @@ import (
 // about one sample per pixel column before drawing, whatever the size of
 // the sweep's grid. The exact window edges do not come from the thinned
 // samples: the band chart marks them with ticks at their exact scales,
-// and the sweep keeps every grid point for the workbook.
+// the contour map traces them across the second axis (windowEdgeLines),
+// and the workbook keeps every grid point.
 
 // DisplayColumns is the most samples a band chart or contour map keeps
 // along one axis: about one per pixel of the data area (a 9-inch map at
