@@ -381,30 +381,6 @@ func sampleIndices(n, max int) []int {
 	return idx
 }
 
-// bucketMax thins vals to the sample indices idx: each sample stands for
-// the points nearest to it and takes their largest margin, so a feasible
-// point never disappears from a thinned map.
-func bucketMax(vals []float64, idx []int) []float64 {
-	out := make([]float64, len(idx))
-	for k, i := range idx {
-		a, b := i, len(vals)
-		if k > 0 {
-			a = (idx[k-1] + i + 1) / 2
-		}
-		if k < len(idx)-1 {
-			b = (i + idx[k+1] + 1) / 2
-		}
-		m := math.NaN()
-		for j := a; j < b && j < len(vals); j++ {
-			if v := vals[j]; !math.IsNaN(v) && (math.IsNaN(m) || v > m) {
-				m = v
-			}
-		}
-		out[k] = m
-	}
-	return out
-}
-
 func pick(vals []float64, idx []int) []float64 {
 	out := make([]float64, len(idx))
 	for k, i := range idx {

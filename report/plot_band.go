@@ -19,7 +19,7 @@ import (
 type BandChart struct {
 	Strategy, Technique string
 	// X holds the kL of the drawn samples: the grid, thinned to
-	// MaxPlotPoints (first and last grid values kept).
+	// DisplayColumns (first and last grid values kept).
 	X []float64
 	// Rows are the combinations shown, top first: every combination of
 	// the strategy in sweep order, then its joint (all-cases) windows.
@@ -48,7 +48,7 @@ type BandRow struct {
 func BandData(res *sweep.Result, sr *sweep.StrategyResult) BandChart {
 	bc := BandChart{Strategy: sr.Name, Technique: sr.Technique}
 	grid := res.Plan.Grid
-	idx := sampleIndices(len(grid), MaxPlotPoints)
+	idx := displayIndices(len(grid))
 	bc.X = pick(grid, idx)
 	all := append(append([]*sweep.ComboResult(nil), sr.Combos...), sr.Joint...)
 	keep := bandRowsKept(all, sr.Best)
@@ -60,7 +60,7 @@ func BandData(res *sweep.Result, sr *sweep.StrategyResult) BandChart {
 			row.Robust = c.Robust.Window
 		}
 		if len(c.Margins) == len(grid) {
-			row.Margin = bucketMax(c.Margins, idx)
+			row.Margin = thinMargins(c.Margins, idx)
 		}
 		bc.Rows = append(bc.Rows, row)
 	}

@@ -21,7 +21,7 @@ type ContourMap struct {
 	Strategy string
 	Label    string
 	Combo    *sweep.ComboResult
-	// X holds kL (the grid, thinned to MaxPlotPoints) and Y the second
+	// X holds kL (the grid, thinned to DisplayColumns) and Y the second
 	// axis values in SI (thinned likewise).
 	X, Y []float64
 	// Z[j][i] is the margin (decades) at Y[j], X[i].
@@ -36,6 +36,9 @@ type ContourMap struct {
 	// Iso are the study's measures drawn as iso-lines (dotted), each with
 	// log10 of its value on the same points as Z and the values drawn.
 	Iso []IsoMeasure
+	// Edges are the window's exact edges traced across the axis (white
+	// dashes).
+	Edges []EdgeLine
 }
 
 // IsoMeasure is a study measure over the contour map.
@@ -50,55 +53,59 @@ type IsoMeasure struct {
 // one when it has axis data, else the one whose margin peaks highest.
 func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 	p := res.Plan
-	has := func(c *sweep.ComboResult) bool {
-		if c == nil || len(c.AxisMargins) < 2 || len(c.AxisMargins) != len(p.AxisValues) {
-			return false
+	// The margin rows are computed on demand, for the combinations drawn.
+	rowsOf := func(c *sweep.ComboResult) [][]float64 {
+		if c == nil {
+			return nil
 		}
-		for _, row := range c.AxisMargins {
+		rows := c.AxisMarginRows()
+		if len(rows) < 2 || len(rows) != len(p.AxisValues) {
+			return nil
+		}
+		for _, row := range rows {
 			if len(row) != len(p.Grid) {
-				return false
+				return nil
 			}
 		}
-		return true
+		return rows
 	}
 	var pickC *sweep.ComboResult
-	if has(sr.Best) {
+	pickRows := rowsOf(sr.Best)
+	if pickRows != nil {
 		pickC = sr.Best
 	} else {
+		// The combination that comes closest to feasible; its rows are
+		// swept again only once it is chosen.
 		bestPeak := math.Inf(-1)
 		for _, c := range sr.Combos {
-			if !has(c) {
+			if c == nil || len(c.AxisWindows) < 2 && len(c.AxisMargins) < 2 {
 				continue
 			}
-			pk := math.Inf(-1)
-			for _, row := range c.AxisMargins {
-				for _, v := range row {
-					if v > pk {
-						pk = v
-					}
-				}
-			}
-			if pickC == nil || pk > bestPeak {
+			if pk := c.AxisMarginPeak(); pickC == nil || pk > bestPeak {
 				pickC, bestPeak = c, pk
 			}
+		}
+		if pickRows = rowsOf(pickC); pickRows == nil {
+			pickC = nil
 		}
 	}
 	if pickC == nil {
 		return nil
 	}
-	xi := sampleIndices(len(p.Grid), MaxPlotPoints)
-	yi := sampleIndices(len(p.AxisValues), MaxPlotPoints)
+	xi := displayIndices(len(p.Grid))
+	yi := displayIndices(len(p.AxisValues))
 	cm := &ContourMap{Strategy: sr.Name, Label: comboLabel(pickC), Combo: pickC,
 		X: pick(p.Grid, xi), Y: pick(p.AxisValues, yi), Axis: p.Settings.Axis, Unit: axisUnit(p),
 		YLog: !p.Settings.AxisLinear}
 	for _, v := range cm.Y {
 		cm.YLog = cm.YLog && v > 0
 	}
-	// Thin the rows like the columns: each kept row takes the largest
+	cm.Edges = windowEdgeLines(pickC.AxisWindows, p.AxisValues, yi)
+	// Thin the rows like the columns: each kept row takes the smallest
 	// margin of the rows it stands for.
-	cols := make([][]float64, len(pickC.AxisMargins))
-	for j, row := range pickC.AxisMargins {
-		cols[j] = bucketMax(row, xi)
+	cols := make([][]float64, len(pickRows))
+	for j, row := range pickRows {
+		cols[j] = thinMargins(row, xi)
 	}
 	cm.Z = make([][]float64, len(yi))
 	for j := range cm.Z {
@@ -109,7 +116,7 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 		for j := range cols {
 			col[j] = cols[j][i]
 		}
-		for j, v := range bucketMax(col, yi) {
+		for j, v := range thinMargins(col, yi) {
 			cm.Z[j][i] = v
 		}
 	}
@@ -127,8 +134,9 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 			cm.Levels = append(cm.Levels, e)
 		}
 	}
-	names := make([]string, 0, len(pickC.AxisMeasures))
-	for n := range pickC.AxisMeasures {
+	measures := pickC.AxisMeasureRows()
+	names := make([]string, 0, len(measures))
+	for n := range measures {
 		names = append(names, n)
 	}
 	sort.Strings(names)
@@ -137,7 +145,7 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 		units[m.Name] = m.Unit.Text
 	}
 	for _, n := range names {
-		rows := pickC.AxisMeasures[n]
+		rows := measures[n]
 		if len(rows) != len(p.AxisValues) {
 			continue
 		}
@@ -238,6 +246,9 @@ func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
 	if len(cm.Iso) > 0 {
 		title += "\ndotted: iso-lines of the study's measures at model scale, each labelled with its value"
 	}
+	if len(cm.Edges) > 0 {
+		title += "\nwhite dashes: the window's edges at their exact scales"
+	}
 	p := newPlot(title, cm.X[0], cm.X[len(cm.X)-1])
 	p.Y.Label.Text = cm.Axis
 	if cm.Unit == "k = prototype/model" {
@@ -255,7 +266,7 @@ func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
 		p.Y.Scale = plot.LogScale{}
 		p.Y.Tick.Marker = logTicks{format: plainNumber}
 	}
-	p.Add(&contourPlotter{cm: cm})
+	p.Add(&contourPlotter{cm: cm}, edgeLinesPlotter{cm.Edges})
 	main, strip := splitRight(inset(dc), contourBarW)
 	p.Draw(main)
 	data := p.DataCanvas(main)

@@ -36,7 +36,7 @@ type RequirementCurve struct {
 // it.
 func RequirementData(res *sweep.Result, sr *sweep.StrategyResult) []RequirementSeries {
 	grid := res.Plan.Grid
-	idx := sampleIndices(len(grid), MaxPlotPoints)
+	idx := displayIndices(len(grid))
 	limiting := map[string]bool{}
 	for _, c := range sr.Combos {
 		for _, iv := range c.Window {

@@ -160,22 +160,45 @@ func TestBandData(t *testing.T) {
 
 func TestBandDataThinsLargeGrids(t *testing.T) {
 	res := plotResult(5001)
-	c := res.Strategies[0].Combos[1]
-	// A feasible spike one grid point wide must survive the thinning.
-	c.Margins[2501] = 0.05
-	bc := BandData(res, res.Strategies[0])
+	c := res.Strategies[0].Combos[0]
 	grid := res.Plan.Grid
-	if len(bc.X) != MaxPlotPoints || bc.X[0] != grid[0] || bc.X[len(bc.X)-1] != grid[len(grid)-1] {
-		t.Fatalf("X: %d samples from %v to %v, want %d from %v to %v", len(bc.X), bc.X[0], bc.X[len(bc.X)-1], MaxPlotPoints, grid[0], grid[len(grid)-1])
-	}
-	spike := 0
-	for _, m := range bc.Rows[1].Margin {
-		if m >= 0 {
-			spike++
+	// An infeasible dip one grid point wide, inside the feasible stretch
+	// around 1:20, must survive the thinning.
+	dip := 0
+	for i, k := range grid {
+		if math.Abs(math.Log(k/20)) < math.Abs(math.Log(grid[dip]/20)) {
+			dip = i
 		}
 	}
-	if spike != 1 {
-		t.Errorf("the one feasible grid point shows in %d samples, want 1", spike)
+	c.Margins[dip+1] = -0.05
+	bc := BandData(res, res.Strategies[0])
+	if len(bc.X) != DisplayColumns || bc.X[0] != grid[0] || bc.X[len(bc.X)-1] != grid[len(grid)-1] {
+		t.Fatalf("X: %d samples from %v to %v, want %d from %v to %v", len(bc.X), bc.X[0], bc.X[len(bc.X)-1], DisplayColumns, grid[0], grid[len(grid)-1])
+	}
+	shown := 0
+	for _, m := range bc.Rows[0].Margin {
+		if m == -0.05 {
+			shown++
+		}
+	}
+	if shown != 1 {
+		t.Errorf("the one infeasible grid point shows in %d samples, want 1", shown)
+	}
+	// Every sample is the smallest margin of the grid points nearest to
+	// it: a sample is drawn feasible only where all its points are.
+	for k, x := range bc.X {
+		lo, hi := x, x
+		if k > 0 {
+			lo = math.Sqrt(bc.X[k-1] * x)
+		}
+		if k < len(bc.X)-1 {
+			hi = math.Sqrt(x * bc.X[k+1])
+		}
+		for i, g := range grid {
+			if g > lo*1.0001 && g < hi/1.0001 && c.Margins[i] < bc.Rows[0].Margin[k] {
+				t.Fatalf("sample %d (1:%.4g) shows margin %v above grid point 1:%.4g with %v", k, x, bc.Rows[0].Margin[k], g, c.Margins[i])
+			}
+		}
 	}
 }
 

@@ -90,8 +90,10 @@ type ComboResult struct {
 	Params feasibility.Values
 	// Margins holds the margin of every grid point (decades) and Limiting
 	// the index into Limits of the limit that gives it (LimitingSimilarity
-	// for a similarity condition, LimitingNone for none); with a second
-	// axis, AxisMargins holds one row per axis value.
+	// for a similarity condition, LimitingNone for none), at the chosen
+	// axis value. With a second axis, AxisMarginRows gives one row per
+	// axis value, computed on demand: the sweep leaves AxisMargins and
+	// AxisMeasures nil (a result built by hand may set them).
 	Margins     []float64
 	Limiting    []int
 	AxisMargins [][]float64
@@ -100,6 +102,8 @@ type ComboResult struct {
 	// scale over the grid, one row per axis value (in the measure's unit).
 	AxisMeasures map[string][][]float64
 	Err          string
+	// axis sweeps the second axis again on demand (AxisMarginRows).
+	axis *axisSweep
 }
 
 // LimitInfo describes a limit applied to a combination.
@@ -255,48 +259,34 @@ func (p *Plan) runCombo(ctx context.Context, index int, c *PlanCase, m, mat *Can
 	if p.AxisValues != nil && p.axisApplies(c, f) {
 		axes = p.AxisValues
 	}
-	bestI := -1
-	var best *sweepOut
-	var bestLimiting []int
+	// Every axis value's window from the compiled limits; the grid is
+	// swept at the chosen value only (analytic.go).
+	ax := &axisSweep{plan: p, cas: c, medium: m, material: mat, fac: f, axes: axes, us: us}
+	if len(axes) > 1 && !isCondition(p.Settings.Axis) {
+		ax.lp = &limitPlan{}
+	}
 	cache := sampleCache{}
-	scratch := make([]int, len(us))
-	for i, a := range axes {
-		if err := ctx.Err(); err != nil {
-			r.Err = err.Error()
-			return r
+	bestI, windows, best, err := ax.choose(ctx, cache)
+	if err != nil {
+		r.Err = err.Error()
+		return r
+	}
+	if len(axes) > 1 {
+		r.AxisWindows = windows
+	}
+	if best == nil {
+		x, err := ax.combo(axes[bestI])
+		if err == nil {
+			best, err = x.sweep(ctx, us, cache, make([]int, len(us)))
 		}
-		x, err := p.newCombo(c, m, mat, f, a)
 		if err != nil {
 			r.Err = err.Error()
 			return r
-		}
-		out, err := x.sweep(ctx, us, cache, scratch)
-		if err != nil {
-			r.Err = err.Error()
-			return r
-		}
-		if len(axes) > 1 {
-			r.AxisMargins = append(r.AxisMargins, out.margins)
-			r.AxisWindows = append(r.AxisWindows, out.window)
-			for _, m := range p.Measures {
-				if r.AxisMeasures == nil {
-					r.AxisMeasures = map[string][][]float64{}
-				}
-				r.AxisMeasures[m.Name] = append(r.AxisMeasures[m.Name], x.measureGrid(m, us))
-			}
-		}
-		if best == nil || better(out.window, best.window) {
-			best, bestI = out, i
-			best.combo = x
-			if bestLimiting == nil {
-				bestLimiting = make([]int, len(us))
-			}
-			copy(bestLimiting, scratch)
 		}
 	}
-	best.limiting = bestLimiting
 	if len(axes) > 1 {
 		r.Axis = axes[bestI]
+		r.axis = ax
 	}
 	best.requirements = best.combo.requirements(ctx, best.limits, us)
 	if err := ctx.Err(); err != nil {
@@ -516,7 +506,7 @@ func formatSI(v float64, unit string) string {
 
 // sweep evaluates every limit over the grid and finds the window.
 func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limiting []int) (*sweepOut, error) {
-	limits, notes, err := x.limitsFor()
+	limits, notes, err := x.compiledLimits()
 	if err != nil {
 		return nil, err
 	}
@@ -528,7 +518,7 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	win := limitWindow(limits, us, nil)
 	// The largest model any facility could take: the window of the limits
 	// that name no capability of this facility.
-	if x.fac != nil {
+	if x.fac != nil && !x.windowOnly {
 		free := limitWindow(limits, us, func(l compiled) bool {
 			for _, n := range l.lim.Names() {
 				if _, ok := x.fac.Caps[n]; ok {
@@ -573,6 +563,9 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 		condFails, win = blocked, nil
 	}
 	out.window = toWindow(win)
+	if x.windowOnly {
+		return out, nil
+	}
 	// Margins on the grid, for the maps: one pass per limit over the grid,
 	// a linear form for products of powers, so the inner loop is a
 	// multiply-add with no allocation.
@@ -630,13 +623,7 @@ func marginGrid(limits []compiled, us, m []float64, arg []int) {
 			continue
 		}
 		for i, u := range us {
-			v := 0.0
-			if l.vals != nil {
-				v = l.vals[i]
-			} else {
-				v = l.margin(u)
-			}
-			if v < m[i] {
+			if v := l.marginAt(i, u); v < m[i] {
 				m[i], arg[i] = v, j
 			}
 		}
@@ -756,7 +743,7 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 		return true
 	}
 	r.Largest = r.Window.Largest()
-	costAt := func(kL float64) (float64, error) { return x.cost(kL) }
+	costAt := x.costFunc()
 	hasCost := len(x.costs()) > 0
 	if hasCost {
 		r.CostCurve = make([]float64, len(p.Grid))
@@ -922,27 +909,6 @@ func (x *combo) costs() []*PlanCost {
 		}
 	}
 	return out
-}
-
-// cost is the campaign cost at a length scale.
-func (x *combo) cost(kL float64) (float64, error) {
-	ln := math.Log(kL)
-	total := 0.0
-	for _, c := range x.costs() {
-		var ferr error
-		v := c.Measure.Eval(func(n string) float64 {
-			f, err := x.form(n)
-			if err != nil && ferr == nil {
-				ferr = err
-			}
-			return f.at(ln)
-		})
-		if ferr != nil {
-			return 0, fmt.Errorf("Costs!D%d: %v", c.Row, ferr)
-		}
-		total += c.Coefficient * v / c.Per.Factor
-	}
-	return total, nil
 }
 
 // joint intersects, per facility, the windows of every case: the scales at

@@ -40,6 +40,10 @@ type combo struct {
 	// byCand holds each candidate's own properties, as drawn and at the
 	// axis value (candidateValue reads them).
 	byCand map[*Candidate2]map[string]materials.Property
+	// limitPlan, when set, holds the limits compiled once for every axis
+	// value (analytic.go); windowOnly stops sweep at the window.
+	limitPlan  *limitPlan
+	windowOnly bool
 }
 
 // factor returns the multiplier a draw puts on an input (1 when none).

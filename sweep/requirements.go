@@ -3,6 +3,9 @@ package sweep
 import (
 	"context"
 	"math"
+	"slices"
+
+	"scaleplan/feasibility"
 )
 
 // Requirement is a facility capability read the other way: the value a
@@ -19,7 +22,9 @@ type Requirement struct {
 	// Have is the facility's own value.
 	Have float64
 	// Exact is true when the requirement comes from inverting a
-	// products-of-powers limit; otherwise it was found by bisection.
+	// products-of-powers limit, or a limit where the capability stands
+	// alone in a side that is a product of powers; otherwise it was
+	// found by bisection.
 	Exact bool
 }
 
@@ -38,19 +43,70 @@ func (r Requirement) Shortfall(i int) float64 {
 }
 
 // requirements inverts every limit that names a capability of the
-// combination's facility. It stops, returning nil, when ctx is done.
+// combination's facility, at every grid scale. It stops, returning nil,
+// when ctx is done.
 func (x *combo) requirements(ctx context.Context, limits []compiled, us []float64) []Requirement {
-	if x.fac == nil {
+	forms := x.requirementForms(limits)
+	if forms == nil {
 		return nil
 	}
 	var out []Requirement
+	for _, rf := range forms {
+		req := rf.req
+		req.Values = make([]float64, len(us))
+		switch rf.how {
+		case solvedLinear:
+			A, B := rf.l.info.A, rf.l.info.B
+			for i, u := range us {
+				// margin moves by e·Δlog10(capability): solve margin = 0.
+				req.Values[i] = req.Have * math.Pow(10, -(A+B*u)/rf.e)
+			}
+		case solvedIsolated:
+			x.invertIsolated(rf.l, rf.e, req.Have, us, &req)
+		default:
+			if !x.invertSampled(ctx, rf.l, req.Capability, req.Have, us, &req) {
+				continue
+			}
+		}
+		if ctx.Err() != nil {
+			return nil
+		}
+		out = append(out, req)
+	}
+	return out
+}
+
+// How a requirement is solved.
+const (
+	solvedLinear   = iota // a products-of-powers limit: log-linear in log kL
+	solvedIsolated        // the capability alone in a side that is a product of powers
+	solvedBisected        // otherwise, by bisection at every scale
+)
+
+// requirementForm is a requirement before it is evaluated on the grid:
+// which limit and capability, and how it is solved (for a products-of-
+// powers limit, log10 required = log10 have − (A + B·log10 kL)/e).
+type requirementForm struct {
+	req Requirement // without Values
+	l   compiled
+	how int
+	e   float64 // the capability's exponent in the margin
+}
+
+// requirementForms finds, from the compiled limits alone (without the
+// grid), every capability requirement and how it is solved.
+func (x *combo) requirementForms(limits []compiled) []requirementForm {
+	if x.fac == nil {
+		return nil
+	}
+	out := []requirementForm{}
 	for _, l := range limits {
 		for _, n := range l.lim.Names() {
 			have, ok := x.fac.Caps[n]
 			if !ok {
 				continue
 			}
-			req := Requirement{Capability: n, Unit: x.fac.CapUnits[n], Limit: l.info.Name, Have: have, Values: make([]float64, len(us))}
+			rf := requirementForm{req: Requirement{Capability: n, Unit: x.fac.CapUnits[n], Limit: l.info.Name, Have: have}, l: l, how: solvedBisected}
 			if l.info.Linear {
 				e := 0.0
 				for _, t := range l.terms {
@@ -61,23 +117,60 @@ func (x *combo) requirements(ctx context.Context, limits []compiled, us []float6
 				if e == 0 {
 					continue
 				}
-				req.Exact, req.AtLeast = true, e > 0
-				for i, u := range us {
-					// margin moves by e·Δlog10(capability): solve margin = 0.
-					req.Values[i] = have * math.Pow(10, -(l.info.A+l.info.B*u)/e)
-				}
-			} else {
-				if !x.invertSampled(ctx, l, n, have, us, &req) {
-					continue
-				}
+				rf.how, rf.e = solvedLinear, e
+				rf.req.Exact, rf.req.AtLeast = true, e > 0
+			} else if eff, ok := isolated(l, n); ok {
+				rf.how, rf.e = solvedIsolated, eff
+				rf.req.Exact, rf.req.AtLeast = true, eff > 0
 			}
-			if ctx.Err() != nil {
-				return nil
-			}
-			out = append(out, req)
+			out = append(out, rf)
 		}
 	}
 	return out
+}
+
+// isolated reports whether capability n stands in one side of a limit
+// that is not a product of powers, with that side a product of powers and
+// n nowhere else ("a·b + c·d <= tank_length"). The margin then moves by
+// eff·Δlog10 n exactly, whatever the other side: eff is n's exponent,
+// with the sign that makes it grow the margin.
+func isolated(l compiled, n string) (eff float64, ok bool) {
+	for _, side := range []struct {
+		e, other *feasibility.Expr
+		sign     float64 // +1 where a larger side grows the margin
+	}{{l.lim.Right, l.lim.Left, 1}, {l.lim.Left, l.lim.Right, -1}} {
+		if slices.Contains(side.other.Names(), n) {
+			continue
+		}
+		_, powers, ok := side.e.Product()
+		if !ok {
+			continue
+		}
+		for _, p := range powers {
+			if p.Name == n {
+				if !l.lim.Upper {
+					side.sign = -side.sign
+				}
+				return side.sign * p.Exp.Float64(), true
+			}
+		}
+	}
+	return 0, false
+}
+
+// invertIsolated solves an isolated capability's margin for zero at every
+// grid point: required = have · 10^(−margin/eff). Like the bisection it
+// replaces, it gives NaN where the requirement lies beyond six decades of
+// the facility's value or the margin is not finite.
+func (x *combo) invertIsolated(l compiled, eff, have float64, us []float64, req *Requirement) {
+	for i, u := range us {
+		t := -l.marginAt(i, u) / eff // log10(required / have)
+		if math.IsNaN(t) || t < -6 || t > 6 {
+			req.Values[i] = math.NaN()
+			continue
+		}
+		req.Values[i] = have * math.Pow(10, t)
+	}
 }
 
 // invertSampled finds the required capability of a limit that is not a

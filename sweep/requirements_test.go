@@ -75,3 +75,23 @@ func TestAnyFacilityLargestModel(t *testing.T) {
 		t.Errorf("largest model for any facility at kL %v, want the sweep's %v", c.AnyFacility, res.Plan.Grid[0])
 	}
 }
+
+// TestRunLengthRequirementExact checks the tank length the run-length
+// limit needs, a sum solved exactly for the capability that stands alone
+// on its side, against the hand value for Froude scaling (time and speed
+// scale as kL^1/2, so V_m·T_m = V_p·T_p/kL): L_tank = (V_p·T_p + 3 L_p)/kL,
+// 12 kn = 12·1852/3600 m/s (the international knot).
+func TestRunLengthRequirementExact(t *testing.T) {
+	res := runStudy(t, Synthetic(50, 0, 2, 1))
+	c := comboIn(t, res.Strategies[0], "Deepwater tank")
+	r := requirement(t, c, "tank_length", "run length")
+	if !r.Exact || !r.AtLeast {
+		t.Errorf("run length requirement: exact %v, at least %v; want both", r.Exact, r.AtLeast)
+	}
+	need := 12*1852.0/3600*60 + 3*28
+	for i, kL := range res.Plan.Grid {
+		if want := need / kL; !relClose(r.Values[i], want, 1e-12) {
+			t.Errorf("kL %.4g: tank length %v, want %v", kL, r.Values[i], want)
+		}
+	}
+}

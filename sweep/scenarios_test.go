@@ -100,8 +100,8 @@ func TestScenarioConductor(t *testing.T) {
 	if b == nil {
 		t.Fatal("no window")
 	}
-	if len(b.AxisMargins) != len(res.Plan.AxisValues) {
-		t.Errorf("axis margins %d rows, want one per axis value (%d)", len(b.AxisMargins), len(res.Plan.AxisValues))
+	if rows := b.AxisMarginRows(); len(rows) != len(res.Plan.AxisValues) {
+		t.Errorf("axis margins %d rows, want one per axis value (%d)", len(rows), len(res.Plan.AxisValues))
 	}
 	// Reduced stiffness k/(ρV²L) kept (common practice): the model's
 	// stiffness per spring is k_p/(k_ρ kV² kL)/springs.

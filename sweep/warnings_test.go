@@ -217,11 +217,11 @@ func TestUncertainGivenTwice(t *testing.T) {
 func TestAxisDoesNotApplyToAFixedCase(t *testing.T) {
 	res := runStudy(t, conductorFixed(t, "velocity=2", true))
 	c := res.Strategies[0].Combos[0]
-	if len(c.AxisMargins) != 0 || !isNaN(c.Axis) {
-		t.Errorf("a fixed case swept over the axis: axis %v, %d rows", c.Axis, len(c.AxisMargins))
+	if len(c.AxisWindows) != 0 || len(c.AxisMarginRows()) != 0 || !isNaN(c.Axis) {
+		t.Errorf("a fixed case swept over the axis: axis %v, %d rows", c.Axis, len(c.AxisWindows))
 	}
 	free := runStudy(t, scenario(t, "conductor")).Strategies[0].Combos[0]
-	if len(free.AxisMargins) < 2 || isNaN(free.Axis) {
+	if len(free.AxisWindows) < 2 || len(free.AxisMarginRows()) < 2 || isNaN(free.Axis) {
 		t.Errorf("the free case lost its axis")
 	}
 }

@@ -40,7 +40,7 @@ unknown command or flag, a missing required flag or flag value).
 
 # run
 
-	scaleplan run [STUDY ...] [--out DIR] [--format png|svg|pdf] [--json] [--max-points N]
+	scaleplan run [STUDY ...] [--out DIR] [--format png|svg|pdf] [--json] [--max-points N] [--no-files]
 
 Each STUDY is an .xlsx workbook or a folder of .csv sheets (the layout is in
 the README); with none, the built-in scenarios run. Studies run in
@@ -96,6 +96,10 @@ relaxes nothing outranks a larger 1 g model whose Froude number is eleven
 times too large:
 
 	$ scaleplan run testdata/drag-anchor --json --out scaleplan-out
+
+With --no-files the studies are swept and the table (or the JSON, without
+its outputs key) is printed, but nothing is written and no output folder is
+made: for scripts that read the summary, and for timing the sweep alone.
 
 # init and check
 

@@ -21,7 +21,7 @@ func runCommand() *cli.Command {
 	return &cli.Command{
 		Name:      "run",
 		Usage:     "sweep studies and write workbooks, maps and memos",
-		UsageText: "scaleplan run [STUDY ...] [--out DIR] [--json] [--max-points N]",
+		UsageText: "scaleplan run [STUDY ...] [--out DIR] [--json] [--max-points N] [--no-files]",
 		Description: "Each STUDY is an .xlsx workbook or a folder of .csv sheets. With no STUDY the built-in demo\n" +
 			"scenarios run. Studies run in parallel; per study a workbook is written to the output folder and\n" +
 			"a short table is printed (--json prints the same as data). Outputs are written to temporary files\n" +
@@ -31,6 +31,7 @@ func runCommand() *cli.Command {
 			&cli.BoolFlag{Name: "json", Usage: "print the results as JSON"},
 			&cli.StringFlag{Name: "format", Value: "png", Usage: "format of the feasibility maps: png, svg or pdf (PNG maps are always written too, for the workbook)"},
 			&cli.StringFlag{Name: "max-points", Usage: "allow sweeps of up to N points (grid points × combinations), overriding each study's max_points (default 1e8)"},
+			&cli.BoolFlag{Name: "no-files", Usage: "sweep and print the summary (text or --json) without writing any file: for scripts and for timing the sweep alone"},
 		},
 		Action: func(c *cli.Context) error {
 			maxPoints, err := parseMaxPoints(c.String("max-points"))
@@ -60,8 +61,8 @@ func runCommand() *cli.Command {
 				jobs = append(jobs, sweep.Job{Name: path, Load: func() (*sweep.Study, error) { return sweep.Load(path) }, MaxPoints: maxPoints})
 				inputs = append(inputs, path)
 			}
-			out := c.String("out")
-			if err := refuseInputAsOutput(out, inputs); err != nil {
+			out, noFiles := c.String("out"), c.Bool("no-files")
+			if err := refuseInputAsOutput(out, inputs); !noFiles && err != nil {
 				return err
 			}
 			if err := refuseRepeatedInputs(inputs); err != nil {
@@ -80,7 +81,7 @@ func runCommand() *cli.Command {
 			if ctx.Err() != nil {
 				return interrupted(0, len(outcomes))
 			}
-			if err := refuseSharedOutputs(outcomes); err != nil {
+			if err := refuseSharedOutputs(outcomes); !noFiles && err != nil {
 				return err
 			}
 			var data []any
@@ -98,15 +99,18 @@ func runCommand() *cli.Command {
 				}
 				// The output folder is made only when there is something
 				// to put in it.
-				if !made {
+				if !made && !noFiles {
 					if err := os.MkdirAll(out, 0o755); err != nil {
 						return fmt.Errorf("output folder %s: %v", out, err)
 					}
 					made = true
 				}
-				prog.writing(written+1, succeeded(outcomes), o.Name)
-				files, err := report.WriteStudy(wctx, out, o.Result, format)
-				prog.clear()
+				var files []string
+				if !noFiles {
+					prog.writing(written+1, succeeded(outcomes), o.Name)
+					files, err = report.WriteStudy(wctx, out, o.Result, format)
+					prog.clear()
+				}
 				if err != nil {
 					if ctx.Err() != nil {
 						return interrupted(written, len(outcomes))
@@ -120,7 +124,11 @@ func runCommand() *cli.Command {
 					if err := report.WriteRunText(c.App.Writer, o.Result); err != nil {
 						return err
 					}
-					fmt.Fprintf(c.App.Writer, "written: %s\n\n", strings.Join(files, ", "))
+					if !noFiles {
+						fmt.Fprintf(c.App.Writer, "written: %s\n\n", strings.Join(files, ", "))
+					} else {
+						fmt.Fprintln(c.App.Writer)
+					}
 				}
 			}
 			prog.clear()

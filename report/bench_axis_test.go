@@ -1,0 +1,45 @@
+package report
+
+import (
+	"context"
+	"testing"
+
+	"scaleplan/materials"
+	"scaleplan/sweep"
+)
+
+// BenchmarkSyntheticEndToEnd sweeps the 32-million-point synthetic study
+// (2,000 kL points × 100 tank depths × 40 waters × 4 strategies) and
+// writes every output (workbook, maps, memo), as `scaleplan run` does.
+func BenchmarkSyntheticEndToEnd(b *testing.B) {
+	p := syntheticPlan(b, 2000, 100, 40, 4)
+	dir := b.TempDir()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		res, err := p.Run(context.Background())
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := WriteStudy(context.Background(), dir, res, PlotPNG); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// syntheticPlan prepares the synthetic study of the given size.
+func syntheticPlan(b testing.TB, points, axis, cands, strats int) *sweep.Plan {
+	b.Helper()
+	lib, err := materials.Default()
+	if err != nil {
+		b.Fatal(err)
+	}
+	cat, err := sweep.NewFacilityCatalog()
+	if err != nil {
+		b.Fatal(err)
+	}
+	p, err := sweep.Prepare(sweep.Synthetic(points, axis, cands, strats), lib, cat)
+	if err != nil {
+		b.Fatal(err)
+	}
+	return p
+}
