@@ -4,13 +4,13 @@ import (
 	"io"
 	"strings"
 
-	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // partialMark is in the name of every temporary file an output is written
 // to before it is renamed into place, and of the staging folders of
 // WriteStudy; nothing else carries it.
-const partialMark = sweep.PartialMark
+const partialMark = study.PartialMark
 
 // IsPartial reports whether a file name is one of the temporary files
 // WriteFileAtomic writes through (a leftover of a run that was killed).
@@ -24,5 +24,5 @@ func IsPartial(name string) bool {
 // output. On any error, and on a panic in write, the temporary file is
 // removed and the target is left as it was.
 func WriteFileAtomic(path string, write func(io.Writer) error) error {
-	return sweep.WriteFileAtomic(path, write)
+	return study.WriteFileAtomic(path, write)
 }

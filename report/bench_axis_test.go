@@ -6,6 +6,7 @@ import (
 
 	"scaleplan/materials"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // BenchmarkSyntheticEndToEnd sweeps the 32-million-point synthetic study
@@ -37,7 +38,7 @@ func syntheticPlan(b testing.TB, points, axis, cands, strats int) *sweep.Plan {
 	if err != nil {
 		b.Fatal(err)
 	}
-	p, err := sweep.Prepare(sweep.Synthetic(points, axis, cands, strats), lib, cat)
+	p, err := sweep.Prepare(study.Synthetic(points, axis, cands, strats), lib, cat)
 	if err != nil {
 		b.Fatal(err)
 	}

@@ -4,23 +4,23 @@ import (
 	"bytes"
 	"context"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"io"
 	"testing"
 
-	"github.com/xuri/excelize/v2"
-
 	"scaleplan/materials"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 func syntheticResult(b *testing.B) *sweep.Result {
 	b.Helper()
-	return runStudy(b, sweep.Synthetic(2000, 0, 40, 4))
+	return runStudy(b, study.Synthetic(2000, 0, 40, 4))
 }
 
 // runStudy prepares a study with a fresh library and facility catalogue
 // and runs it.
-func runStudy(tb testing.TB, s *sweep.Study) *sweep.Result {
+func runStudy(tb testing.TB, s *study.Study) *sweep.Result {
 	tb.Helper()
 	lib, err := materials.Default()
 	if err != nil {

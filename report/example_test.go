@@ -8,13 +8,14 @@ import (
 	"scaleplan/materials"
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // report renders what sweep computed: here the terminal table that
 // scaleplan run prints for a study (report.WriteStudy writes the
 // workbook, the memo and the maps of the same result into a folder).
 func ExampleWriteRunText() {
-	study, err := sweep.LoadScenario("mast")
+	s, err := study.LoadScenario("mast")
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -29,7 +30,7 @@ func ExampleWriteRunText() {
 		fmt.Println(err)
 		return
 	}
-	plan, err := sweep.Prepare(study, lib, cat)
+	plan, err := sweep.Prepare(s, lib, cat)
 	if err != nil {
 		fmt.Println(err)
 		return

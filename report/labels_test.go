@@ -5,6 +5,7 @@ import (
 
 	"scaleplan/feasibility"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // TestLabelsCoverEveryName: every quantity, law, facility type and
@@ -35,7 +36,7 @@ func TestLabelsCoverEveryName(t *testing.T) {
 			}
 		}
 	}
-	for _, tech := range sweep.Techniques {
+	for _, tech := range study.Techniques {
 		if l := Label(tech); l != tech && tech != "special_cases" {
 			t.Errorf("technique %s reads %q", tech, l)
 		}

@@ -10,6 +10,7 @@ import (
 
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // Sequences of runs into one output folder: it holds one run's set of a
@@ -19,7 +20,7 @@ import (
 // mfRun runs the tug scenario with its first n strategies and points.
 func mfRun(t *testing.T, n int, points string) *sweep.Result {
 	t.Helper()
-	return rbRunEdited(t, "tug", points, func(s *sweep.Study) { s.Strategies = s.Strategies[:n] })
+	return rbRunEdited(t, "tug", points, func(s *study.Study) { s.Strategies = s.Strategies[:n] })
 }
 
 // mfSnapshot reads every regular file of a folder.

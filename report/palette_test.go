@@ -1,15 +1,15 @@
 package report
 
 import (
+	"github.com/xuri/excelize/v2"
 	"image/color"
 	"math"
 	"path/filepath"
 	"strings"
 	"testing"
 
-	"github.com/xuri/excelize/v2"
-
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // TestMarginColoursAgree: a margin gets the same class and colour in the
@@ -24,7 +24,7 @@ func TestMarginColoursAgree(t *testing.T) {
 		good.Margins[i] = -3 + 6*float64(i)/(n-1)
 	}
 	good.Margins[7] = math.NaN()
-	res.Plan.Study = &sweep.Study{} // nothing to echo on the Inputs sheet
+	res.Plan.Study = &study.Study{} // nothing to echo on the Inputs sheet
 	for _, c := range res.Strategies[0].Combos {
 		c.Limiting = make([]int, n) // every point limited by the first limit
 		c.Limits = []sweep.LimitInfo{{Name: "blockage"}}

@@ -12,6 +12,7 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // textRecorder is a canvas that draws nothing and records the box of
@@ -79,7 +80,7 @@ func (r *textRecorder) FillString(f font.Face, pt vg.Point, s string) {
 // placementScenario runs a built-in scenario.
 func placementScenario(t *testing.T, name string) *sweep.Result {
 	t.Helper()
-	s, err := sweep.LoadScenario(name)
+	s, err := study.LoadScenario(name)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -121,7 +122,7 @@ func mapTexts(res *sweep.Result) map[string]*textRecorder {
 // the width they are printed, 6.3 in, so text keeps its size on a portrait
 // page).
 func TestMapLabelsDoNotCollide(t *testing.T) {
-	list, err := sweep.Scenarios()
+	list, err := study.Scenarios()
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -7,12 +7,13 @@ import (
 
 	"scaleplan/materials"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // scenarioResult runs a built-in scenario.
 func scenarioResult(t *testing.T, name string) *sweep.Result {
 	t.Helper()
-	s, err := sweep.LoadScenario(name)
+	s, err := study.LoadScenario(name)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -12,6 +12,7 @@ import (
 	"scaleplan/materials"
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // FuzzStudy runs whole small studies through the check, the sweep and
@@ -26,7 +27,7 @@ func FuzzStudy(f *testing.F) {
 	sheets := []string{"Study", "Prototype", "Facilities", "Strategies", "Limits"}
 	tug := map[string]string{}
 	for _, s := range sheets {
-		b, err := os.ReadFile(filepath.Join("..", "sweep", "testdata", "scenarios", "tug", s+".csv"))
+		b, err := os.ReadFile(filepath.Join("..", "sweep", "study", "testdata", "scenarios", "tug", s+".csv"))
 		if err != nil {
 			f.Fatal(err)
 		}
@@ -65,18 +66,18 @@ func FuzzStudy(f *testing.F) {
 	if err != nil {
 		f.Fatal(err)
 	}
-	f.Fuzz(func(t *testing.T, study, prototype, facilities, strategies, limits string) {
+	f.Fuzz(func(t *testing.T, studyCSV, prototype, facilities, strategies, limits string) {
 		fsys := fstest.MapFS{}
 		for _, s := range []string{"Media", "Materials", "Costs"} {
-			b, err := os.ReadFile(filepath.Join("..", "sweep", "testdata", "scenarios", "tug", s+".csv"))
+			b, err := os.ReadFile(filepath.Join("..", "sweep", "study", "testdata", "scenarios", "tug", s+".csv"))
 			if err == nil {
 				fsys["tug/"+s+".csv"] = &fstest.MapFile{Data: b}
 			}
 		}
-		for s, v := range map[string]string{"Study": study, "Prototype": prototype, "Facilities": facilities, "Strategies": strategies, "Limits": limits} {
+		for s, v := range map[string]string{"Study": studyCSV, "Prototype": prototype, "Facilities": facilities, "Strategies": strategies, "Limits": limits} {
 			fsys["tug/"+s+".csv"] = &fstest.MapFile{Data: []byte(v)}
 		}
-		s, err := sweep.LoadFS(fsys, "tug")
+		s, err := study.LoadFS(fsys, "tug")
 		if s == nil {
 			t.Fatalf("no study: %v", err)
 		}
@@ -123,7 +124,7 @@ func FuzzStudy(f *testing.F) {
 // fzCap keeps a fuzzed study small: at most 12 scales, 3 axis values, 50
 // draws of the uncertain inputs and 2 strategy rows (each input then runs
 // in about a second, outputs included).
-func fzCap(s *sweep.Study) {
+func fzCap(s *study.Study) {
 	if len(s.Strategies) > 2 {
 		s.Strategies = s.Strategies[:2]
 	}
@@ -138,7 +139,7 @@ func fzCap(s *sweep.Study) {
 		}
 	}
 	if _, ok := s.Settings["points"]; !ok {
-		s.Settings["points"] = sweep.Setting{Name: "points", Value: "12", Cell: sweep.Cell{Sheet: "Study", Row: 900, Col: 2}}
+		s.Settings["points"] = study.Setting{Name: "points", Value: "12", Cell: study.Cell{Sheet: "Study", Row: 900, Col: 2}}
 	}
 }
 
@@ -148,13 +149,13 @@ func fzCheckPlaces(t *testing.T, err error) {
 	if err == nil {
 		return
 	}
-	ps, ok := err.(sweep.Problems)
+	ps, ok := err.(study.Problems)
 	if !ok {
 		t.Fatalf("not problems: %v", err)
 	}
 	for _, p := range ps {
 		known := false
-		for _, s := range sweep.SheetNames {
+		for _, s := range study.SheetNames {
 			known = known || p.Cell.Sheet == s
 		}
 		if !known {

@@ -17,6 +17,7 @@ import (
 	"scaleplan/materials"
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // Robustness of the outputs: names, atomic writes, interrupts. Helpers
@@ -74,9 +75,9 @@ func rbRun(t *testing.T, name string, points string) *sweep.Result {
 }
 
 // rbRunEdited is rbRun with the study changed by edit (when not nil).
-func rbRunEdited(t *testing.T, name string, points string, edit func(*sweep.Study)) *sweep.Result {
+func rbRunEdited(t *testing.T, name string, points string, edit func(*study.Study)) *sweep.Result {
 	t.Helper()
-	s, err := sweep.LoadScenario(name)
+	s, err := study.LoadScenario(name)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -307,12 +308,12 @@ func TestInterruptLargeBatch(t *testing.T) {
 	for i, points := range []string{"", "", "200000", "200000", "200000", "200000"} {
 		name := "batch-" + string(rune('a'+i))
 		bases = append(bases, name)
-		jobs = append(jobs, sweep.Job{Name: name, Load: func() (*sweep.Study, error) {
-			s, err := sweep.LoadScenario("tug")
+		jobs = append(jobs, sweep.Job{Name: name, Load: func() (*study.Study, error) {
+			s, err := study.LoadScenario("tug")
 			if err != nil {
 				return nil, err
 			}
-			s.Settings["name"] = sweep.Setting{Name: "name", Value: name, Cell: s.Settings["name"].Cell}
+			s.Settings["name"] = study.Setting{Name: "name", Value: name, Cell: s.Settings["name"].Cell}
 			if points != "" {
 				set := s.Settings["points"]
 				set.Value = points

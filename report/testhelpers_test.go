@@ -3,15 +3,15 @@ package report_test
 import (
 	"context"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"math"
 	"strconv"
 	"strings"
 	"testing"
 
-	"github.com/xuri/excelize/v2"
-
 	"scaleplan/materials"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // Helpers shared by the workbook and memo tests. Their names start with
@@ -20,9 +20,9 @@ import (
 
 // wbScenarios lists the built-in scenarios; every test that takes "every
 // demo study" iterates over it.
-func wbScenarios(t *testing.T) []sweep.Scenario {
+func wbScenarios(t *testing.T) []study.Scenario {
 	t.Helper()
-	list, err := sweep.Scenarios()
+	list, err := study.Scenarios()
 	if err != nil {
 		t.Fatalf("sweep.Scenarios: %v", err)
 	}
@@ -33,9 +33,9 @@ func wbScenarios(t *testing.T) []sweep.Scenario {
 }
 
 // wbLoad reads a built-in scenario.
-func wbLoad(t *testing.T, name string) *sweep.Study {
+func wbLoad(t *testing.T, name string) *study.Study {
 	t.Helper()
-	s, err := sweep.LoadScenario(name)
+	s, err := study.LoadScenario(name)
 	if err != nil {
 		t.Fatalf("LoadScenario(%q): %v", name, err)
 	}
@@ -44,7 +44,7 @@ func wbLoad(t *testing.T, name string) *sweep.Study {
 
 // wbRun prepares a study with a fresh library and facility catalogue and
 // runs it.
-func wbRun(t *testing.T, s *sweep.Study) *sweep.Result {
+func wbRun(t *testing.T, s *study.Study) *sweep.Result {
 	t.Helper()
 	res, err := wbRunE(s)
 	if err != nil {
@@ -54,7 +54,7 @@ func wbRun(t *testing.T, s *sweep.Study) *sweep.Result {
 }
 
 // wbRunE is wbRun returning its error.
-func wbRunE(s *sweep.Study) (*sweep.Result, error) {
+func wbRunE(s *study.Study) (*sweep.Result, error) {
 	lib, err := materials.Default()
 	if err != nil {
 		return nil, fmt.Errorf("materials.Default: %v", err)
@@ -76,7 +76,7 @@ func wbRunE(s *sweep.Study) (*sweep.Result, error) {
 
 // wbRunScenarioE loads and runs a built-in scenario, returning the error.
 func wbRunScenarioE(name string) (*sweep.Result, error) {
-	s, err := sweep.LoadScenario(name)
+	s, err := study.LoadScenario(name)
 	if err != nil {
 		return nil, fmt.Errorf("LoadScenario(%q): %v", name, err)
 	}

@@ -10,6 +10,7 @@ import (
 
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // anchorRun runs the invented drag-anchor study of sweep/testdata/anchor
@@ -18,12 +19,12 @@ import (
 // sweep/rank_test.go) with extra Study settings.
 func anchorRun(t *testing.T, settings ...string) *sweep.Result {
 	t.Helper()
-	s, err := sweep.Load("../sweep/testdata/anchor")
+	s, err := study.Load("../sweep/testdata/anchor")
 	if err != nil {
 		t.Fatal(err)
 	}
 	for i := 0; i+1 < len(settings); i += 2 {
-		s.Settings[settings[i]] = sweep.Setting{Name: settings[i], Value: settings[i+1], Cell: sweep.Cell{Sheet: "Study", Row: 50 + i, Col: 2}}
+		s.Settings[settings[i]] = study.Setting{Name: settings[i], Value: settings[i+1], Cell: study.Cell{Sheet: "Study", Row: 50 + i, Col: 2}}
 	}
 	return wbRun(t, s)
 }

@@ -5,6 +5,7 @@ import (
 	"bytes"
 	"context"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"image/png"
 	"io"
 	"math"
@@ -14,10 +15,9 @@ import (
 	"sort"
 	"strings"
 
-	"github.com/xuri/excelize/v2"
-
 	"scaleplan/feasibility"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // fixedTime makes workbooks byte-identical from run to run.
@@ -578,7 +578,7 @@ func writeInputs(f *excelize.File, res *sweep.Result, bold int) error {
 	in := res.Plan.Study
 	block := func(sheet string, rows [][]string) error {
 		head := []any{excelize.Cell{StyleID: bold, Value: "sheet " + sheet}}
-		for _, c := range sweep.Columns[sheet] {
+		for _, c := range study.Columns[sheet] {
 			head = append(head, excelize.Cell{StyleID: bold, Value: c})
 		}
 		if err := s.add(head...); err != nil {
@@ -617,7 +617,7 @@ func writeInputs(f *excelize.File, res *sweep.Result, bold int) error {
 	}
 	for _, sh := range []struct {
 		name string
-		rows []sweep.Candidate
+		rows []study.Candidate
 	}{{"Media", in.Media}, {"Materials", in.Materials}} {
 		rows = nil
 		for _, r := range sh.rows {

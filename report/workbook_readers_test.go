@@ -4,6 +4,7 @@ import (
 	"context"
 	"encoding/json"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -14,11 +15,10 @@ import (
 	"testing"
 	"time"
 
-	"github.com/xuri/excelize/v2"
-
 	"scaleplan/materials"
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // openpyxlRows is a Python script that opens each workbook named on its
@@ -70,7 +70,7 @@ func wbTemplate(t *testing.T, dir, scenario string) string {
 	}
 	lists := sweep.DefaultLists(lib, cat)
 	path := filepath.Join(dir, "template-"+scenario+".xlsx")
-	if err := sweep.WriteXLSX(path, wbLoad(t, scenario), lists); err != nil {
+	if err := study.WriteXLSX(path, wbLoad(t, scenario), lists); err != nil {
 		t.Fatal(err)
 	}
 	return path

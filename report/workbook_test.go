@@ -6,6 +6,7 @@ import (
 	"context"
 	"encoding/csv"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"io"
 	"math"
 	"net/url"
@@ -19,10 +20,9 @@ import (
 	"time"
 	"unicode/utf8"
 
-	"github.com/xuri/excelize/v2"
-
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // The workbook tests: every demo study's workbook opens in LibreOffice,
@@ -758,7 +758,7 @@ const (
 // study name, purpose, a strategy, the medium, a facility, a cost item
 // and an added limit (name and source). The limit sets the large-model
 // edge of the renamed strategy, so its name reaches the Summary.
-func formulaStudy(t *testing.T) *sweep.Study {
+func formulaStudy(t *testing.T) *study.Study {
 	t.Helper()
 	s := wbLoad(t, "tug")
 	set := func(name, v string) {
@@ -804,7 +804,7 @@ func formulaStudy(t *testing.T) *sweep.Study {
 	if n < 4 {
 		t.Fatalf("the tug scenario changed: only %d of the renamed rows found", n)
 	}
-	s.Limits = append(s.Limits, sweep.LimitRow{AppliesTo: "towing_tank", Limit: fLimit,
+	s.Limits = append(s.Limits, study.LimitRow{AppliesTo: "towing_tank", Limit: fLimit,
 		Expression: "draft <= 0.4 m", Source: fSource, Row: len(s.Limits) + 2})
 	return s
 }

@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"math"
+	"scaleplan/sweep/study"
 	"testing"
 )
 
@@ -14,7 +15,7 @@ import (
 // tank at least 11·4.8/(0.09·kL²) deep (with the same window), and the
 // sweep keeps the first of them. 12 kn = 12·1852/3600 m/s.
 func TestAxisChoiceByHand(t *testing.T) {
-	res := runStudy(t, Synthetic(40, 41, 1, 1))
+	res := runStudy(t, study.Synthetic(40, 41, 1, 1))
 	c := comboIn(t, res.Strategies[0], "Deepwater tank")
 	vp := 12 * 1852.0 / 3600
 	kLo := math.Pow(vp/2.2, 2)
@@ -58,7 +59,7 @@ func TestAxisChoiceByHand(t *testing.T) {
 // axis value and computes them on demand: one row per axis value, the row
 // at the chosen value equal to the margins kept for the map sheets.
 func TestAxisRowsOnDemand(t *testing.T) {
-	res := runStudy(t, Synthetic(30, 6, 2, 1))
+	res := runStudy(t, study.Synthetic(30, 6, 2, 1))
 	for _, c := range res.Strategies[0].Combos {
 		if c.AxisMargins != nil || c.AxisMeasures != nil {
 			t.Fatalf("%s: margins kept at every axis value", c.Medium)

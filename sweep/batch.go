@@ -9,12 +9,13 @@ import (
 	"sync"
 
 	"scaleplan/materials"
+	"scaleplan/sweep/study"
 )
 
 // Job is one study of a batch.
 type Job struct {
 	Name string
-	Load func() (*Study, error)
+	Load func() (*study.Study, error)
 	// MaxPoints, when above 0, replaces the study's max_points setting:
 	// the largest sweep (grid points × combinations) the study may run
 	// (scaleplan run --max-points). It is at most MaxPointsLimit.
@@ -106,18 +107,18 @@ func runJob(ctx context.Context, j Job, cat *FacilityCatalog) Outcome {
 
 // withMaxPoints returns s, or with n > 0 a copy of s whose max_points
 // setting is n (in the cell of the study's own setting, if it has one).
-func withMaxPoints(s *Study, n int) *Study {
+func withMaxPoints(s *study.Study, n int) *study.Study {
 	if n <= 0 {
 		return s
 	}
 	c := *s
-	c.Settings = make(map[string]Setting, len(s.Settings)+1)
+	c.Settings = make(map[string]study.Setting, len(s.Settings)+1)
 	for k, v := range s.Settings {
 		c.Settings[k] = v
 	}
 	set, ok := c.Settings["max_points"]
 	if !ok {
-		set = Setting{Name: "max_points", Cell: Cell{Sheet: "Study"}}
+		set = study.Setting{Name: "max_points", Cell: study.Cell{Sheet: "Study"}}
 	}
 	set.Value = strconv.Itoa(n)
 	c.Settings["max_points"] = set

@@ -3,6 +3,7 @@ package sweep
 import (
 	"context"
 	"errors"
+	"scaleplan/sweep/study"
 	"strings"
 	"sync/atomic"
 	"testing"
@@ -11,8 +12,8 @@ import (
 // tugJob is a job running the tug scenario with its points changed (when
 // points is not "").
 func tugJob(name, points string, maxPoints int) Job {
-	return Job{Name: name, MaxPoints: maxPoints, Load: func() (*Study, error) {
-		s, err := LoadScenario("tug")
+	return Job{Name: name, MaxPoints: maxPoints, Load: func() (*study.Study, error) {
+		s, err := study.LoadScenario("tug")
 		if err != nil {
 			return nil, err
 		}
@@ -49,13 +50,13 @@ func TestRunBatchMaxPoints(t *testing.T) {
 		t.Error("the plan's study holds a max_points setting the study does not have")
 	}
 	// Beyond what any flag may allow, the advice says so.
-	s, _ := LoadScenario("tug")
-	s.Settings["points"] = Setting{Name: "points", Value: "10000000", Cell: s.Settings["points"].Cell}
-	s.Settings["axis"] = Setting{Name: "axis", Value: "temperature", Cell: Cell{"Study", 40, 2}}
-	s.Settings["axis_from"] = Setting{Name: "axis_from", Value: "5", Unit: "C", Cell: Cell{"Study", 41, 2}}
-	s.Settings["axis_to"] = Setting{Name: "axis_to", Value: "30", Unit: "C", Cell: Cell{"Study", 42, 2}}
-	s.Settings["axis_points"] = Setting{Name: "axis_points", Value: "1000", Cell: Cell{"Study", 43, 2}}
-	out = RunBatch(context.Background(), []Job{{Name: "huge", Load: func() (*Study, error) { return s, nil }, MaxPoints: MaxPointsLimit}}, cat)
+	s, _ := study.LoadScenario("tug")
+	s.Settings["points"] = study.Setting{Name: "points", Value: "10000000", Cell: s.Settings["points"].Cell}
+	s.Settings["axis"] = study.Setting{Name: "axis", Value: "temperature", Cell: study.Cell{Sheet: "Study", Row: 40, Col: 2}}
+	s.Settings["axis_from"] = study.Setting{Name: "axis_from", Value: "5", Unit: "C", Cell: study.Cell{Sheet: "Study", Row: 41, Col: 2}}
+	s.Settings["axis_to"] = study.Setting{Name: "axis_to", Value: "30", Unit: "C", Cell: study.Cell{Sheet: "Study", Row: 42, Col: 2}}
+	s.Settings["axis_points"] = study.Setting{Name: "axis_points", Value: "1000", Cell: study.Cell{Sheet: "Study", Row: 43, Col: 2}}
+	out = RunBatch(context.Background(), []Job{{Name: "huge", Load: func() (*study.Study, error) { return s, nil }, MaxPoints: MaxPointsLimit}}, cat)
 	if out[0].Err == nil || !strings.Contains(out[0].Err.Error(), "the sweep has 6e+10 points (10000000000 grid points × 6 combinations), more than 2147483647: reduce points (or axis_points): --max-points allows at most 2147483647") {
 		t.Errorf("huge: %v", out[0].Err)
 	}
@@ -75,7 +76,7 @@ func TestRunBatchCancelled(t *testing.T) {
 	for range 20 {
 		j := tugJob("x", "2000000", 0)
 		load := j.Load
-		j.Load = func() (*Study, error) { loaded.Add(1); return load() }
+		j.Load = func() (*study.Study, error) { loaded.Add(1); return load() }
 		jobs = append(jobs, j)
 	}
 	out := RunBatch(ctx, jobs, cat)

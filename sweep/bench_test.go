@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"scaleplan/materials"
+	"scaleplan/sweep/study"
 )
 
 func preparedSynthetic(b *testing.B, points, axis, cands, strats int) *Plan {
@@ -18,7 +19,7 @@ func preparedSynthetic(b *testing.B, points, axis, cands, strats int) *Plan {
 	if err != nil {
 		b.Fatal(err)
 	}
-	p, err := Prepare(Synthetic(points, axis, cands, strats), lib, cat)
+	p, err := Prepare(study.Synthetic(points, axis, cands, strats), lib, cat)
 	if err != nil {
 		b.Fatal(err)
 	}
@@ -88,19 +89,19 @@ func BenchmarkScenarios(b *testing.B) { benchScenarios(b, "") }
 // benchScenarios runs every built-in scenario, with the given number of
 // draws of its uncertain inputs ("" keeps the study's own).
 func benchScenarios(b *testing.B, samples string) {
-	list, err := Scenarios()
+	list, err := study.Scenarios()
 	if err != nil {
 		b.Fatal(err)
 	}
 	cat, _ := NewFacilityCatalog()
 	for i := 0; i < b.N; i++ {
 		for _, sc := range list {
-			s, err := LoadScenario(sc.Name)
+			s, err := study.LoadScenario(sc.Name)
 			if err != nil {
 				b.Fatal(err)
 			}
 			if samples != "" {
-				s.Settings["samples"] = Setting{Name: "samples", Value: samples, Cell: Cell{"Study", 99, 2}}
+				s.Settings["samples"] = study.Setting{Name: "samples", Value: samples, Cell: study.Cell{Sheet: "Study", Row: 99, Col: 2}}
 			}
 			lib, _ := materials.Default()
 			p, err := Prepare(s, lib, cat)

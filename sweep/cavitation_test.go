@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"math"
+	"scaleplan/sweep/study"
 	"testing"
 )
 
@@ -12,7 +13,7 @@ import (
 // k_p = k_ρ·kL, is read the other way as the requirement on the tunnel's
 // lowest pressure and bounds the window where it reaches 5 kPa.
 func TestStudyCavitationTunnelPressure(t *testing.T) {
-	s, err := Load("testdata/propeller")
+	s, err := study.Load("testdata/propeller")
 	if err != nil {
 		t.Fatal(err)
 	}

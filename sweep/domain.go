@@ -5,6 +5,7 @@ import (
 	"math"
 	"runtime"
 	"runtime/debug"
+	"scaleplan/sweep/study"
 	"strconv"
 )
 
@@ -57,7 +58,7 @@ func memoryBudget() int64 {
 // checkDomain refuses settings outside the values a sweep can take: a
 // scale range beyond MinScale to MaxScale, an axis beyond its bounds, a
 // capability or scale-factor axis that is not positive.
-func (p *Plan) checkDomain(ps *Problems) {
+func (p *Plan) checkDomain(ps *study.Problems) {
 	st := p.Settings
 	if st.ScaleFrom > 0 && st.ScaleTo > st.ScaleFrom && (st.ScaleFrom < MinScale || st.ScaleTo > MaxScale) {
 		ps.Add(st.Cell("scale_from"), "the scale range %v to %v reaches beyond kL = %g to %g (a model a thousand times the prototype to a millionth of it): give the range you mean to test, e.g. 5 to 100", st.ScaleFrom, st.ScaleTo, MinScale, MaxScale)
@@ -137,7 +138,7 @@ func (p *Plan) memoryNeed() (sweep, draws float64, points, combos int) {
 // checkMemory refuses a sweep that would need more memory than the soft
 // limit, with the figure it would need, before the grid is made.
 // A sweep beyond max_points is left to buildGrid, which says so.
-func (p *Plan) checkMemory(ps *Problems) {
+func (p *Plan) checkMemory(ps *study.Problems) {
 	sweep, draws, points, combos := p.memoryNeed()
 	st := p.Settings
 	if float64(points)*float64(combos) > float64(st.MaxPoints) {
@@ -167,7 +168,7 @@ func mib(b float64) string {
 // axis): a margin that is not a finite number (a division by zero, the
 // root of a negative number) would close every window, so the limit is
 // refused at its expression with the place it fails.
-func (p *Plan) checkLimitsFinite(ps *Problems) {
+func (p *Plan) checkLimitsFinite(ps *study.Problems) {
 	if len(p.Limits) == 0 || len(p.Grid) == 0 {
 		return
 	}
@@ -196,7 +197,7 @@ func (p *Plan) checkLimitsFinite(ps *Problems) {
 	}
 }
 
-func (p *Plan) checkComboLimits(c *PlanCase, m, mat *Candidate2, f *Facility, a float64, us []float64, bad map[int]bool, ps *Problems) {
+func (p *Plan) checkComboLimits(c *PlanCase, m, mat *Candidate2, f *Facility, a float64, us []float64, bad map[int]bool, ps *study.Problems) {
 	x, err := p.newCombo(c, m, mat, f, a)
 	if err != nil {
 		return // the sweep reports it for the combination
@@ -222,7 +223,7 @@ func (p *Plan) checkComboLimits(c *PlanCase, m, mat *Candidate2, f *Facility, a 
 				if !math.IsNaN(a) {
 					where += ", " + p.Settings.Axis + " = " + strconv.FormatFloat(a, 'g', 4, 64)
 				}
-				ps.Add(At("Limits", pl.Row, "expression"), "limit %q has no finite value at %s (%s): it divides by zero or takes the root of a negative number there; check the expression and the values it names", pl.Name, where, describeCombo(c, m, mat, f))
+				ps.Add(study.At("Limits", pl.Row, "expression"), "limit %q has no finite value at %s (%s): it divides by zero or takes the root of a negative number there; check the expression and the values it names", pl.Name, where, describeCombo(c, m, mat, f))
 				break
 			}
 			break

@@ -6,19 +6,20 @@ import (
 	"math"
 	"runtime"
 	"runtime/debug"
+	"scaleplan/sweep/study"
 	"strings"
 	"testing"
 )
 
 // withSetting returns the tug study with settings changed (value, unit).
-func tugWith(t *testing.T, settings map[string][2]string) *Study {
+func tugWith(t *testing.T, settings map[string][2]string) *study.Study {
 	t.Helper()
 	s := scenario(t, "tug")
 	row := 100
 	for k, v := range settings {
 		set, ok := s.Settings[k]
 		if !ok {
-			set = Setting{Name: k, Cell: Cell{"Study", row, 2}}
+			set = study.Setting{Name: k, Cell: study.Cell{Sheet: "Study", Row: row, Col: 2}}
 			row++
 		}
 		set.Value, set.Unit = v[0], v[1]
@@ -33,7 +34,7 @@ func TestDomainProblems(t *testing.T) {
 	tests := []struct {
 		name     string
 		settings map[string][2]string
-		limits   []LimitRow
+		limits   []study.LimitRow
 		want     string
 	}{
 		{"a scale range from 1e-200 to 1e200", map[string][2]string{"scale_from": {"1e-200", ""}, "scale_to": {"1e200", ""}}, nil,
@@ -46,9 +47,9 @@ func TestDomainProblems(t *testing.T) {
 			"the axis temperature from -1e+308 to 1e+308 reaches beyond ±1e+12 (SI)"},
 		{"a log axis over 25 decades", map[string][2]string{"axis": {"tank_depth", ""}, "axis_from": {"1e-15", "m"}, "axis_to": {"1e10", "m"}}, nil,
 			"the axis tank_depth spans 25 decades"},
-		{"a limit that divides by zero", nil, []LimitRow{{AppliesTo: "all", Limit: "zero_gap", Expression: "hull_length / (beam - beam) >= 1", Row: 2}},
+		{"a limit that divides by zero", nil, []study.LimitRow{{AppliesTo: "all", Limit: "zero_gap", Expression: "hull_length / (beam - beam) >= 1", Row: 2}},
 			`Limits!C2: limit "zero_gap" has no finite value at kL = 4`},
-		{"a limit with the root of a negative number", nil, []LimitRow{{AppliesTo: "all", Limit: "root", Expression: "sqrt(beam - hull_length) * sqrt(beam) >= 1 [m]", Row: 2}},
+		{"a limit with the root of a negative number", nil, []study.LimitRow{{AppliesTo: "all", Limit: "root", Expression: "sqrt(beam - hull_length) * sqrt(beam) >= 1 [m]", Row: 2}},
 			`Limits!C2: limit "root" has no finite value at kL = 4`},
 	}
 	for _, tt := range tests {
@@ -82,10 +83,10 @@ func TestOneTypoOneError(t *testing.T) {
 			s.Prototype[i].Unit = "mx"
 		}
 	}
-	s.Limits = append(s.Limits, LimitRow{AppliesTo: "all", Limit: "wide", Expression: "beam >= 0.1 [m]", Row: 2})
-	s.Measures = append(s.Measures, MeasureRow{Measure: "model beam", Expression: "beam", Unit: "mm", Row: 2})
-	s.Costs = append(s.Costs, CostRow{Item: "paint", Coefficient: "10", Per: "m", Measure: "beam", Row: 9})
-	s.Uncertain = append(s.Uncertain, UncertainRow{Input: "beam", Distribution: "normal", Spread: "5%", Row: 2})
+	s.Limits = append(s.Limits, study.LimitRow{AppliesTo: "all", Limit: "wide", Expression: "beam >= 0.1 [m]", Row: 2})
+	s.Measures = append(s.Measures, study.MeasureRow{Measure: "model beam", Expression: "beam", Unit: "mm", Row: 2})
+	s.Costs = append(s.Costs, study.CostRow{Item: "paint", Coefficient: "10", Per: "m", Measure: "beam", Row: 9})
+	s.Uncertain = append(s.Uncertain, study.UncertainRow{Input: "beam", Distribution: "normal", Spread: "5%", Row: 2})
 	_, err := prepare(t, s)
 	got := problemLines(t, err)
 	if len(got) != 1 || !strings.HasPrefix(got[0], `Prototype!B3: unit "mx"`) && !strings.HasPrefix(got[0], `Prototype!B3: value "11 mx"`) {
@@ -100,10 +101,10 @@ func TestOneTypoOneError(t *testing.T) {
 func TestMemoryRefusedUpFront(t *testing.T) {
 	old := debug.SetMemoryLimit(DefaultMemoryBudget)
 	defer debug.SetMemoryLimit(old)
-	study := Synthetic(10_000_000, 0, 1, 1)
+	big := study.Synthetic(10_000_000, 0, 1, 1)
 	var before, after runtime.MemStats
 	runtime.ReadMemStats(&before)
-	_, err := prepare(t, study)
+	_, err := prepare(t, big)
 	runtime.ReadMemStats(&after)
 	// Refused before the grid is made: the grid alone would be 80 MB (the
 	// library and the catalogue take about 1 MB).
@@ -117,7 +118,7 @@ func TestMemoryRefusedUpFront(t *testing.T) {
 		t.Errorf("want %q, got:\n  %s", want, strings.Join(got, "\n  "))
 	}
 	// Within the budget, the study is accepted.
-	if _, err := prepare(t, Synthetic(1_000_000, 0, 1, 1)); err != nil {
+	if _, err := prepare(t, study.Synthetic(1_000_000, 0, 1, 1)); err != nil {
 		t.Errorf("1,000,000 points refused: %v", err)
 	}
 }
@@ -177,7 +178,7 @@ func TestMemoryOfDraws(t *testing.T) {
 	defer runtime.GOMAXPROCS(runtime.GOMAXPROCS(2))
 	s := tugWith(t, map[string][2]string{"samples": {"10000000", ""}})
 	inputs := len(s.Uncertain) + 1 // 3
-	s.Uncertain = append(s.Uncertain, UncertainRow{Input: "beam", Distribution: "normal", Spread: "2%", Row: 9})
+	s.Uncertain = append(s.Uncertain, study.UncertainRow{Input: "beam", Distribution: "normal", Spread: "2%", Row: 9})
 	_, err := prepare(t, s)
 	// With the tug's two uncertain inputs and beam: 10^7 draws × (24 +
 	// 8 × 3) bytes × 2 combinations at once = 960 MB, above 768 MiB
@@ -187,7 +188,7 @@ func TestMemoryOfDraws(t *testing.T) {
 	}
 	// A thousand draws fit.
 	s = tugWith(t, map[string][2]string{"samples": {"1000", ""}})
-	s.Uncertain = append(s.Uncertain, UncertainRow{Input: "hull_length", Distribution: "normal", Spread: "2%", Row: 2})
+	s.Uncertain = append(s.Uncertain, study.UncertainRow{Input: "hull_length", Distribution: "normal", Spread: "2%", Row: 2})
 	if _, err := prepare(t, s); err != nil {
 		t.Errorf("1000 draws refused: %v", err)
 	}

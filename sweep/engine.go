@@ -11,6 +11,7 @@ import (
 	"sync"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
 
 // Result is the outcome of one study.
@@ -21,7 +22,7 @@ type Result struct {
 	// Ranking orders the strategies, recommended first (rank.go);
 	// Warnings are the study's (warnings.go).
 	Ranking  []RankEntry
-	Warnings Warnings
+	Warnings study.Warnings
 }
 
 // StrategyResult gathers the combinations of one strategy.

@@ -8,10 +8,11 @@ import (
 	"testing"
 
 	"scaleplan/materials"
+	"scaleplan/sweep/study"
 )
 
 // prepare checks a study against a fresh library and the catalogue.
-func prepare(t *testing.T, s *Study) (*Plan, error) {
+func prepare(t *testing.T, s *study.Study) (*Plan, error) {
 	t.Helper()
 	lib, err := materials.Default()
 	if err != nil {
@@ -25,7 +26,7 @@ func prepare(t *testing.T, s *Study) (*Plan, error) {
 }
 
 // runStudy prepares and runs a study with a fresh library.
-func runStudy(t *testing.T, s *Study) *Result {
+func runStudy(t *testing.T, s *study.Study) *Result {
 	t.Helper()
 	plan, err := prepare(t, s)
 	if err != nil {
@@ -38,9 +39,9 @@ func runStudy(t *testing.T, s *Study) *Result {
 	return res
 }
 
-func scenario(t *testing.T, name string) *Study {
+func scenario(t *testing.T, name string) *study.Study {
 	t.Helper()
-	s, err := LoadScenario(name)
+	s, err := study.LoadScenario(name)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -72,7 +73,7 @@ func comboIn(t *testing.T, sr *StrategyResult, facility string) *ComboResult {
 func relClose(a, b, tol float64) bool { return math.Abs(a-b) <= tol*math.Abs(b) }
 
 // setCapability changes one facility capability of a study.
-func setCapability(s *Study, facility, capability, value string) {
+func setCapability(s *study.Study, facility, capability, value string) {
 	for i, r := range s.Facilities {
 		if r.Facility == facility && r.Capability == capability {
 			s.Facilities[i].Value = value

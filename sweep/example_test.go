@@ -6,6 +6,7 @@ import (
 
 	"scaleplan/materials"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // A study goes from its sheets to windows in three steps: load it (here a
@@ -15,7 +16,7 @@ import (
 // its cell), and run the plan. Each strategy's Best combination carries
 // its feasible window of length scales, with the limit at each edge.
 func Example() {
-	study, err := sweep.LoadScenario("tug")
+	s, err := study.LoadScenario("tug")
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -30,7 +31,7 @@ func Example() {
 		fmt.Println(err)
 		return
 	}
-	plan, err := sweep.Prepare(study, lib, cat)
+	plan, err := sweep.Prepare(s, lib, cat)
 	if err != nil {
 		fmt.Println(err)
 		return

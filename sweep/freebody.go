@@ -4,13 +4,14 @@ import (
 	"strings"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
 
 // prepareUnballasted reads the Study setting unballasted: the model media
 // and materials whose mass cannot be ballasted (armour units, grains,
 // soils, free bodies). Their density must be the prototype's over
 // k_density within the study's tolerance (substitute.go checks it).
-func (p *Plan) prepareUnballasted(ps *Problems) {
+func (p *Plan) prepareUnballasted(ps *study.Problems) {
 	raw := p.Settings.Unballasted
 	if raw == "" {
 		return

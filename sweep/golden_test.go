@@ -10,6 +10,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"scaleplan/sweep/study"
 	"sort"
 	"strconv"
 	"strings"
@@ -133,23 +134,23 @@ func goldenOf(c *ComboResult, best bool) goldenCombo {
 
 func scenarioGolden(t *testing.T) map[string][]goldenCombo {
 	t.Helper()
-	list, err := Scenarios()
+	list, err := study.Scenarios()
 	if err != nil {
 		t.Fatal(err)
 	}
-	studies := map[string]*Study{}
+	studies := map[string]*study.Study{}
 	for _, sc := range list {
 		studies[sc.Name] = scenario(t, sc.Name)
 	}
 	// A small synthetic study: a facility capability as second axis and a
 	// limit that is a sum (the run length).
-	studies["synthetic"] = Synthetic(60, 7, 3, 4)
+	studies["synthetic"] = study.Synthetic(60, 7, 3, 4)
 	// A medium condition as second axis (limits compiled per axis value).
 	tt := scenario(t, "tug")
-	tt.Settings["axis"] = Setting{Name: "axis", Value: "temperature", Cell: Cell{"Study", 40, 2}}
-	tt.Settings["axis_from"] = Setting{Name: "axis_from", Value: "5", Unit: "C", Cell: Cell{"Study", 41, 2}}
-	tt.Settings["axis_to"] = Setting{Name: "axis_to", Value: "30", Unit: "C", Cell: Cell{"Study", 42, 2}}
-	tt.Settings["axis_points"] = Setting{Name: "axis_points", Value: "6", Cell: Cell{"Study", 43, 2}}
+	tt.Settings["axis"] = study.Setting{Name: "axis", Value: "temperature", Cell: study.Cell{Sheet: "Study", Row: 40, Col: 2}}
+	tt.Settings["axis_from"] = study.Setting{Name: "axis_from", Value: "5", Unit: "C", Cell: study.Cell{Sheet: "Study", Row: 41, Col: 2}}
+	tt.Settings["axis_to"] = study.Setting{Name: "axis_to", Value: "30", Unit: "C", Cell: study.Cell{Sheet: "Study", Row: 42, Col: 2}}
+	tt.Settings["axis_points"] = study.Setting{Name: "axis_points", Value: "6", Cell: study.Cell{Sheet: "Study", Row: 43, Col: 2}}
 	studies["tug-temperature-axis"] = tt
 	out := map[string][]goldenCombo{}
 	for name, s := range studies {

@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"scaleplan/sweep/study"
 	"slices"
 	"strings"
 	"testing"
@@ -14,7 +15,7 @@ import (
 // original name, and must differ from a run without the uncertain
 // capability (so the capability really is part of them).
 func TestUncertainCapabilityOfAFacilityWithAColon(t *testing.T) {
-	rename := func(s *Study, to string) *Study {
+	rename := func(s *study.Study, to string) *study.Study {
 		for i := range s.Facilities {
 			if s.Facilities[i].Facility == "Polar basin" {
 				s.Facilities[i].Facility = to
@@ -27,7 +28,7 @@ func TestUncertainCapabilityOfAFacilityWithAColon(t *testing.T) {
 		}
 		return s
 	}
-	robust := func(s *Study) *Robust {
+	robust := func(s *study.Study) *Robust {
 		t.Helper()
 		b := strategy(t, runStudy(t, s), "tuned model ice").Best
 		if b == nil || b.Robust == nil {
@@ -38,7 +39,7 @@ func TestUncertainCapabilityOfAFacilityWithAColon(t *testing.T) {
 	plain := robust(scenario(t, "pier"))
 	colon := robust(rename(scenario(t, "pier"), "Polar:basin"))
 	without := rename(scenario(t, "pier"), "Polar:basin")
-	without.Uncertain = slices.DeleteFunc(without.Uncertain, func(u UncertainRow) bool { return u.Of == "Polar:basin" })
+	without.Uncertain = slices.DeleteFunc(without.Uncertain, func(u study.UncertainRow) bool { return u.Of == "Polar:basin" })
 	if len(without.Uncertain) != 2 {
 		t.Fatalf("%d uncertain inputs left, want the two that are not the tank's", len(without.Uncertain))
 	}

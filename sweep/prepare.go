@@ -11,22 +11,17 @@ import (
 
 	"scaleplan/feasibility"
 	"scaleplan/materials"
+	"scaleplan/sweep/study"
 )
 
 // StandardGravity is g_n = 9.80665 m/s² (CGPM 1901; NIST SP 811), the
 // gravity of an ordinary facility and the unit of a centrifuge's g-level.
 const StandardGravity = 9.80665
 
-// Techniques label strategies in the report (spec §4).
-var Techniques = []string{"complete", "dominant", "special_cases", "distorted", "simulated", "substitute"}
-
-// Corrections a strategy may ask for.
-var Corrections = []string{"ittc1957"}
-
 // Plan is a checked study, ready to run: numbers in SI, names resolved,
 // each strategy and case solved once.
 type Plan struct {
-	Study      *Study
+	Study      *study.Study
 	Settings   Settings
 	Items      map[string]ProtoItem
 	ItemOrder  []string
@@ -52,7 +47,7 @@ type Plan struct {
 	Unballasted map[string]bool
 	// Warnings are the study's warnings: from reading, then from
 	// checking (see warnings.go).
-	Warnings Warnings
+	Warnings study.Warnings
 	// failed names the prototype items and facility capabilities whose
 	// rows failed a check: still known names, so other checks do not
 	// report them again as unknown (see failedNames).
@@ -135,8 +130,8 @@ type PlanMeasure struct {
 
 // Prepare checks a study against the library, the laws, the facility
 // catalogue and the units, and returns every problem at once.
-func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, error) {
-	var ps Problems
+func Prepare(s *study.Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, error) {
+	var ps study.Problems
 	p := &Plan{Study: s, Library: lib, Catalog: cat, Items: map[string]ProtoItem{}, Proto: map[string]float64{}, ProtoSrc: map[string]string{}}
 	p.Settings = parseSettings(s, &ps)
 	p.prepareCustom(&ps)
@@ -151,7 +146,7 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	p.prepareCosts(&ps)
 	p.prepareMeasures(&ps)
 	p.prepareUncertain(&ps)
-	p.Warnings = append(append(Warnings(nil), s.Warnings...), p.Warnings...) // reading first
+	p.Warnings = append(append(study.Warnings(nil), s.Warnings...), p.Warnings...) // reading first
 	p.warnDefaultLimits()
 	p.warnUnusedCapabilities()
 	p.checkDomain(&ps)
@@ -170,7 +165,7 @@ func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, err
 	return p, nil
 }
 
-func (p *Plan) prepareCustom(ps *Problems) {
+func (p *Plan) prepareCustom(ps *study.Problems) {
 	type acc struct {
 		kind  string
 		props []materials.CustomProperty
@@ -181,7 +176,7 @@ func (p *Plan) prepareCustom(ps *Problems) {
 	for _, r := range p.Study.Custom {
 		name := strings.TrimSpace(r.Entry)
 		if name == "" {
-			ps.Add(At("Custom", r.Row, "entry"), "the entry name is empty")
+			ps.Add(study.At("Custom", r.Row, "entry"), "the entry name is empty")
 			continue
 		}
 		a, ok := byEntry[name]
@@ -203,15 +198,15 @@ func (p *Plan) prepareCustom(ps *Problems) {
 	for _, name := range order {
 		a := byEntry[name]
 		if err := p.Library.Add(materials.CustomEntry{Name: name, Kind: a.kind, Properties: a.props}); err != nil {
-			ps.Add(At("Custom", a.row, "entry"), "%v", err)
+			ps.Add(study.At("Custom", a.row, "entry"), "%v", err)
 		}
 	}
 }
 
-func (p *Plan) prepareItems(ps *Problems) {
+func (p *Plan) prepareItems(ps *study.Problems) {
 	for _, it := range p.Study.Prototype {
 		name := strings.TrimSpace(it.Name)
-		cell := At("Prototype", it.Row, "item")
+		cell := study.At("Prototype", it.Row, "item")
 		if !validName(name) {
 			ps.Add(cell, "item name %q must be letters, digits and underscores, starting with a letter (it is used in limit expressions)", name)
 			continue
@@ -227,27 +222,27 @@ func (p *Plan) prepareItems(ps *Problems) {
 		case "none", "1", "-":
 			scales = ""
 		case "":
-			ps.Add(At("Prototype", it.Row, "scales_as"), "say which quantity %s scales as (e.g. length, velocity) or none for a count", name)
+			ps.Add(study.At("Prototype", it.Row, "scales_as"), "say which quantity %s scales as (e.g. length, velocity) or none for a count", name)
 			fail()
 			continue
 		default:
 			q, err := feasibility.LookupQuantity(scales)
 			if err != nil {
-				ps.Add(At("Prototype", it.Row, "scales_as"), "%v", err)
+				ps.Add(study.At("Prototype", it.Row, "scales_as"), "%v", err)
 				fail()
 				continue
 			}
 			qdim = q.Dim
 		}
-		value, unit, err := timeValue(it.Value, it.Unit, qdim)
+		value, unit, err := study.TimeValue(it.Value, it.Unit, qdim)
 		if err != nil {
-			ps.Add(At("Prototype", it.Row, "value"), "%v", err)
+			ps.Add(study.At("Prototype", it.Row, "value"), "%v", err)
 			fail()
 			continue
 		}
 		v, u, err := feasibility.ParseValue(strings.TrimSpace(value + " " + unit))
 		if err != nil {
-			ps.Add(At("Prototype", it.Row, "value"), "%v", err)
+			ps.Add(study.At("Prototype", it.Row, "value"), "%v", err)
 			fail()
 			continue
 		}
@@ -256,13 +251,13 @@ func (p *Plan) prepareItems(ps *Problems) {
 			if u.Text == "" {
 				dim = qdim
 			} else if !u.Dim.Equal(qdim) {
-				ps.Add(At("Prototype", it.Row, "unit"), "unit %q does not fit %s (needs %s, got %s)", u.Text, scales, qdim, u.Dim)
+				ps.Add(study.At("Prototype", it.Row, "unit"), "unit %q does not fit %s (needs %s, got %s)", u.Text, scales, qdim, u.Dim)
 				fail()
 				continue
 			}
 		}
 		if !(v > 0) {
-			ps.Add(At("Prototype", it.Row, "value"), "%s must be positive, got %v", name, v)
+			ps.Add(study.At("Prototype", it.Row, "value"), "%s must be positive, got %v", name, v)
 			fail()
 			continue
 		}
@@ -270,7 +265,7 @@ func (p *Plan) prepareItems(ps *Problems) {
 		p.ItemOrder = append(p.ItemOrder, name)
 	}
 	if len(p.Items) == 0 {
-		ps.Add(Cell{Sheet: "Prototype"}, "no prototype items: add at least the characteristic length (e.g. hull_length, 30, m, length)")
+		ps.Add(study.Cell{Sheet: "Prototype"}, "no prototype items: add at least the characteristic length (e.g. hull_length, 30, m, length)")
 	}
 	st := &p.Settings
 	pick := func(setting, def, quantity string) string {
@@ -307,7 +302,7 @@ func validName(s string) bool {
 	return true
 }
 
-func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Problems) []*Candidate2 {
+func (p *Plan) prepareCandidates(rows []study.Candidate, sheet, role string, ps *study.Problems) []*Candidate2 {
 	var out []*Candidate2
 	seen := map[string]bool{}
 	for _, r := range rows {
@@ -317,11 +312,11 @@ func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Probl
 			name = entry
 		}
 		if name == "" {
-			ps.Add(At(sheet, r.Row, "name"), "the %s has no name and no library entry", role)
+			ps.Add(study.At(sheet, r.Row, "name"), "the %s has no name and no library entry", role)
 			continue
 		}
 		if seen[name] {
-			ps.Add(At(sheet, r.Row, "name"), "%s %q appears twice", role, name)
+			ps.Add(study.At(sheet, r.Row, "name"), "%s %q appears twice", role, name)
 			continue
 		}
 		seen[name] = true
@@ -334,7 +329,7 @@ func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Probl
 			if _, lerr := p.Library.Lookup(entry); lerr == nil {
 				col = "conditions"
 			}
-			ps.Add(At(sheet, r.Row, col), "%v", err)
+			ps.Add(study.At(sheet, r.Row, col), "%v", err)
 			continue
 		}
 		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e})
@@ -363,7 +358,7 @@ func (p *Plan) entryProps(entry, conditions string) (map[string]materials.Proper
 	return props, e, cond, nil
 }
 
-func (p *Plan) prepareProto(ps *Problems) {
+func (p *Plan) prepareProto(ps *study.Problems) {
 	st := p.Settings
 	for _, src := range []struct{ name, at, setting string }{
 		{st.PrototypeMaterial, st.PrototypeMaterialAt, "prototype_material"},
@@ -402,19 +397,19 @@ func (p *Plan) prepareProto(ps *Problems) {
 	}
 }
 
-func (p *Plan) prepareFacilities(ps *Problems) {
+func (p *Plan) prepareFacilities(ps *study.Problems) {
 	byName := map[string]*Facility{}
 	for _, r := range p.Study.Facilities {
 		name := strings.TrimSpace(r.Facility)
 		if name == "" {
-			ps.Add(At("Facilities", r.Row, "facility"), "the facility name is empty")
+			ps.Add(study.At("Facilities", r.Row, "facility"), "the facility name is empty")
 			continue
 		}
 		f, ok := byName[name]
 		typ := strings.TrimSpace(r.Type)
 		if !ok {
 			if !p.Catalog.HasType(typ) {
-				ps.Add(At("Facilities", r.Row, "type"), "unknown facility type %q%s", typ, feasibility.Suggest(typ, p.Catalog.Types()))
+				ps.Add(study.At("Facilities", r.Row, "type"), "unknown facility type %q%s", typ, feasibility.Suggest(typ, p.Catalog.Types()))
 				byName[name] = &Facility{Name: name}
 				continue
 			}
@@ -424,38 +419,38 @@ func (p *Plan) prepareFacilities(ps *Problems) {
 		} else if f.Type == "" {
 			continue
 		} else if typ != "" && typ != f.Type {
-			ps.Add(At("Facilities", r.Row, "type"), "facility %q is a %s on row %d; one facility has one type", name, f.Type, f.Row)
+			ps.Add(study.At("Facilities", r.Row, "type"), "facility %q is a %s on row %d; one facility has one type", name, f.Type, f.Row)
 			continue
 		}
 		capName := strings.TrimSpace(r.Capability)
 		cp, ok := p.Catalog.Capability(f.Type, capName)
 		if !ok {
-			ps.Add(At("Facilities", r.Row, "capability"), "a %s has no capability %q%s", f.Type, capName, feasibility.Suggest(capName, p.Catalog.CapabilityNames(f.Type)))
+			ps.Add(study.At("Facilities", r.Row, "capability"), "a %s has no capability %q%s", f.Type, capName, feasibility.Suggest(capName, p.Catalog.CapabilityNames(f.Type)))
 			continue
 		}
 		if _, dup := f.Caps[capName]; dup {
-			ps.Add(At("Facilities", r.Row, "capability"), "capability %s of %q is set twice", capName, name)
+			ps.Add(study.At("Facilities", r.Row, "capability"), "capability %s of %q is set twice", capName, name)
 			continue
 		}
-		value, unit, err := timeValue(r.Value, r.Unit, cp.Dim)
+		value, unit, err := study.TimeValue(r.Value, r.Unit, cp.Dim)
 		if err != nil {
-			ps.Add(At("Facilities", r.Row, "value"), "%v", err)
+			ps.Add(study.At("Facilities", r.Row, "value"), "%v", err)
 			p.failed.add(name, capName)
 			continue
 		}
 		v, u, err := feasibility.ParseValue(strings.TrimSpace(value + " " + unit))
 		if err != nil {
-			ps.Add(At("Facilities", r.Row, "value"), "%v", err)
+			ps.Add(study.At("Facilities", r.Row, "value"), "%v", err)
 			p.failed.add(name, capName)
 			continue
 		}
 		if u.Text != "" && !u.Dim.Equal(cp.Dim) {
-			ps.Add(At("Facilities", r.Row, "unit"), "unit %q does not fit %s (needs %s, got %s; e.g. %s)", u.Text, capName, cp.Dim, u.Dim, cp.Unit)
+			ps.Add(study.At("Facilities", r.Row, "unit"), "unit %q does not fit %s (needs %s, got %s; e.g. %s)", u.Text, capName, cp.Dim, u.Dim, cp.Unit)
 			p.failed.add(name, capName)
 			continue
 		}
 		if !(v > 0) {
-			ps.Add(At("Facilities", r.Row, "value"), "%s must be positive, got %v", capName, v)
+			ps.Add(study.At("Facilities", r.Row, "value"), "%s must be positive, got %v", capName, v)
 			p.failed.add(name, capName)
 			continue
 		}
@@ -474,24 +469,24 @@ func splitNames(s string) []string {
 	return out
 }
 
-func (p *Plan) prepareStrategies(ps *Problems) {
+func (p *Plan) prepareStrategies(ps *study.Problems) {
 	byName := map[string]*PlanStrategy{}
 	for _, r := range p.Study.Strategies {
 		name := strings.TrimSpace(r.Strategy)
 		if name == "" {
-			ps.Add(At("Strategies", r.Row, "strategy"), "the strategy name is empty")
+			ps.Add(study.At("Strategies", r.Row, "strategy"), "the strategy name is empty")
 			continue
 		}
 		c := &PlanCase{Strategy: name, Case: strings.TrimSpace(r.Case), Technique: strings.TrimSpace(r.Technique), Row: r.Row, Fix: map[string]float64{}}
-		if !slices.Contains(Techniques, c.Technique) {
-			ps.Add(At("Strategies", r.Row, "technique"), "unknown technique %q%s", c.Technique, feasibility.Suggest(c.Technique, Techniques))
+		if !slices.Contains(study.Techniques, c.Technique) {
+			ps.Add(study.At("Strategies", r.Row, "technique"), "unknown technique %q%s", c.Technique, feasibility.Suggest(c.Technique, study.Techniques))
 		}
 		ok := true
 		lawCol := func(col, text string) []string {
 			names := splitNames(text)
 			for _, n := range names {
 				if _, err := feasibility.LookupLaw(n); err != nil {
-					ps.Add(At("Strategies", r.Row, col), "%v", err)
+					ps.Add(study.At("Strategies", r.Row, col), "%v", err)
 					ok = false
 				}
 			}
@@ -501,7 +496,7 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			names := splitNames(text)
 			for _, n := range names {
 				if _, err := feasibility.LookupQuantity(n); err != nil {
-					ps.Add(At("Strategies", r.Row, col), "%v", err)
+					ps.Add(study.At("Strategies", r.Row, col), "%v", err)
 					ok = false
 				}
 			}
@@ -519,7 +514,7 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 		for _, item := range splitNames(r.Fix) {
 			if tie, isTie, err := gLevelTie(item); isTie {
 				if err != nil {
-					ps.Add(At("Strategies", r.Row, "fix"), "%v", err)
+					ps.Add(study.At("Strategies", r.Row, "fix"), "%v", err)
 					ok = false
 				}
 				strat.Tied = append(strat.Tied, tie)
@@ -528,12 +523,12 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			q, val, found := strings.Cut(item, "=")
 			k, err := strconv.ParseFloat(val, 64)
 			if !found || err != nil || !(k > 0) || math.IsInf(k, 0) {
-				ps.Add(At("Strategies", r.Row, "fix"), "%q is not QUANTITY=FACTOR with a positive factor (e.g. velocity=2)", item)
+				ps.Add(study.At("Strategies", r.Row, "fix"), "%q is not QUANTITY=FACTOR with a positive factor (e.g. velocity=2)", item)
 				ok = false
 				continue
 			}
 			if _, err := feasibility.LookupQuantity(q); err != nil {
-				ps.Add(At("Strategies", r.Row, "fix"), "%v", err)
+				ps.Add(study.At("Strategies", r.Row, "fix"), "%v", err)
 				ok = false
 				continue
 			}
@@ -541,18 +536,18 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 		}
 		strat.PreferFree = p.preferFree(c.Fix, strat.Untie)
 		c.Correction = strings.TrimSpace(r.Correction)
-		if c.Correction != "" && !slices.Contains(Corrections, c.Correction) {
-			ps.Add(At("Strategies", r.Row, "correction"), "unknown correction %q%s", c.Correction, feasibility.Suggest(c.Correction, Corrections))
+		if c.Correction != "" && !slices.Contains(study.Corrections, c.Correction) {
+			ps.Add(study.At("Strategies", r.Row, "correction"), "unknown correction %q%s", c.Correction, feasibility.Suggest(c.Correction, study.Corrections))
 		}
-		c.Media = pickCandidates(p.Media, r.Media, "Media", At("Strategies", r.Row, "media"), ps)
-		c.Materials = pickCandidates(p.Materials, r.Materials, "Materials", At("Strategies", r.Row, "materials"), ps)
-		c.Facilities = p.pickFacilities(r.Facilities, At("Strategies", r.Row, "facilities"), ps)
+		c.Media = pickCandidates(p.Media, r.Media, "Media", study.At("Strategies", r.Row, "media"), ps)
+		c.Materials = pickCandidates(p.Materials, r.Materials, "Materials", study.At("Strategies", r.Row, "materials"), ps)
+		c.Facilities = p.pickFacilities(r.Facilities, study.At("Strategies", r.Row, "facilities"), ps)
 		if !ok {
 			continue
 		}
 		sol, err := feasibility.Solve(strat)
 		if err != nil {
-			ps.Add(At("Strategies", r.Row, "retain"), "%v", err)
+			ps.Add(study.At("Strategies", r.Row, "retain"), "%v", err)
 			continue
 		}
 		c.Solution = sol
@@ -560,11 +555,11 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 			if _, fixed := c.Fix[f]; fixed || p.Settings.Axis == f {
 				continue
 			}
-			ps.Add(At("Strategies", r.Row, "fix"), "strategy %q leaves the %s scale free: fix it here (fix: %s=1) or sweep it as the second axis (Study: axis = %s)", name, f, f, f)
+			ps.Add(study.At("Strategies", r.Row, "fix"), "strategy %q leaves the %s scale free: fix it here (fix: %s=1) or sweep it as the second axis (Study: axis = %s)", name, f, f, f)
 		}
 		for q := range c.Fix {
 			if !slices.Contains(sol.Free, q) {
-				ps.Add(At("Strategies", r.Row, "fix"), "%s is not a free choice of this strategy (free: %s)", q, orNone(sol.Free))
+				ps.Add(study.At("Strategies", r.Row, "fix"), "%s is not a free choice of this strategy (free: %s)", q, orNone(sol.Free))
 			}
 		}
 		p.checkGiven(c, strat.Given, ps)
@@ -576,13 +571,13 @@ func (p *Plan) prepareStrategies(ps *Problems) {
 		}
 		for _, other := range st.Cases {
 			if other.Case == c.Case {
-				ps.Add(At("Strategies", r.Row, "case"), "strategy %q has case %q twice; name each case", name, c.Case)
+				ps.Add(study.At("Strategies", r.Row, "case"), "strategy %q has case %q twice; name each case", name, c.Case)
 			}
 		}
 		st.Cases = append(st.Cases, c)
 	}
 	if len(p.Study.Strategies) == 0 {
-		ps.Add(Cell{Sheet: "Strategies"}, "no strategy: add at least one row")
+		ps.Add(study.Cell{Sheet: "Strategies"}, "no strategy: add at least one row")
 	}
 }
 
@@ -595,8 +590,8 @@ func orNone(s []string) string {
 
 // checkGiven makes sure every given quantity has a prototype value and a
 // model value from each candidate the case may use.
-func (p *Plan) checkGiven(c *PlanCase, given []string, ps *Problems) {
-	cell := At("Strategies", c.Row, "given")
+func (p *Plan) checkGiven(c *PlanCase, given []string, ps *study.Problems) {
+	cell := study.At("Strategies", c.Row, "given")
 	for _, q := range given {
 		if _, ok := p.Proto[q]; !ok {
 			ps.Add(cell, "%s is given but the prototype has no %s: set prototype_medium or prototype_material on the Study sheet, or add an item %s (scales_as %s) to the Prototype sheet", q, q, q, q)
@@ -651,7 +646,7 @@ func modelProp(q string, medium, material *Candidate2) (materials.Property, bool
 	return materials.Property{}, false
 }
 
-func pickCandidates(all []*Candidate2, list, sheet string, cell Cell, ps *Problems) []*Candidate2 {
+func pickCandidates(all []*Candidate2, list, sheet string, cell study.Cell, ps *study.Problems) []*Candidate2 {
 	names := splitNames(list)
 	if len(names) == 0 {
 		return all
@@ -672,7 +667,7 @@ func pickCandidates(all []*Candidate2, list, sheet string, cell Cell, ps *Proble
 	return out
 }
 
-func (p *Plan) pickFacilities(list string, cell Cell, ps *Problems) []*Facility {
+func (p *Plan) pickFacilities(list string, cell study.Cell, ps *study.Problems) []*Facility {
 	names := splitNames(list)
 	if len(names) == 0 {
 		return p.Facilities
@@ -693,7 +688,7 @@ func (p *Plan) pickFacilities(list string, cell Cell, ps *Problems) []*Facility 
 	return out
 }
 
-func (p *Plan) prepareLimits(ps *Problems) {
+func (p *Plan) prepareLimits(ps *study.Problems) {
 	seen := map[string]bool{}
 	for _, r := range p.Study.Limits {
 		name := strings.TrimSpace(r.Limit)
@@ -702,12 +697,12 @@ func (p *Plan) prepareLimits(ps *Problems) {
 			applies = "all"
 		}
 		if name == "" {
-			ps.Add(At("Limits", r.Row, "limit"), "the limit has no name")
+			ps.Add(study.At("Limits", r.Row, "limit"), "the limit has no name")
 			continue
 		}
 		key := applies + "\x00" + name
 		if seen[key] {
-			ps.Add(At("Limits", r.Row, "limit"), "limit %q for %s appears twice", name, applies)
+			ps.Add(study.At("Limits", r.Row, "limit"), "limit %q for %s appears twice", name, applies)
 			continue
 		}
 		seen[key] = true
@@ -718,12 +713,12 @@ func (p *Plan) prepareLimits(ps *Problems) {
 			for _, f := range p.Facilities {
 				known = append(known, f.Name)
 			}
-			ps.Add(At("Limits", r.Row, "applies_to"), "%q is neither all, a facility type nor a facility of the study%s", applies, feasibility.Suggest(applies, known))
+			ps.Add(study.At("Limits", r.Row, "applies_to"), "%q is neither all, a facility type nor a facility of the study%s", applies, feasibility.Suggest(applies, known))
 			continue
 		}
 		l, err := feasibility.ParseLimit(r.Expression)
 		if err != nil {
-			ps.Add(At("Limits", r.Row, "expression"), "%v", err)
+			ps.Add(study.At("Limits", r.Row, "expression"), "%v", err)
 			continue
 		}
 		pl := &PlanLimit{AppliesTo: applies, Name: name, Source: strings.TrimSpace(r.Source), Limit: l, Row: r.Row}
@@ -748,7 +743,7 @@ func (p *Plan) prepareLimits(ps *Problems) {
 				if f != nil {
 					where = " (for facility " + strconv.Quote(f.Name) + ")"
 				}
-				ps.Add(At("Limits", r.Row, "expression"), "%v%s", err, where)
+				ps.Add(study.At("Limits", r.Row, "expression"), "%v%s", err, where)
 				break
 			}
 		}
@@ -845,12 +840,12 @@ func unknownName(name string, known func() []string) error {
 	return unknownNameError{name, known}
 }
 
-func (p *Plan) prepareCosts(ps *Problems) {
+func (p *Plan) prepareCosts(ps *study.Problems) {
 	for _, r := range p.Study.Costs {
 		c := &PlanCost{Item: strings.TrimSpace(r.Item), Facility: strings.TrimSpace(r.Facility), Row: r.Row}
 		k, err := strconv.ParseFloat(strings.TrimSpace(r.Coefficient), 64)
 		if err != nil || math.IsNaN(k) || math.IsInf(k, 0) || k < 0 {
-			ps.Add(At("Costs", r.Row, "coefficient"), "%q is not a non-negative number", r.Coefficient)
+			ps.Add(study.At("Costs", r.Row, "coefficient"), "%q is not a non-negative number", r.Coefficient)
 			continue
 		}
 		c.Coefficient = k
@@ -858,21 +853,21 @@ func (p *Plan) prepareCosts(ps *Problems) {
 		if s := strings.TrimSpace(r.Per); s != "" && s != "1" {
 			u, err := feasibility.ParseUnit(s)
 			if err != nil {
-				ps.Add(At("Costs", r.Row, "per"), "%v", err)
+				ps.Add(study.At("Costs", r.Row, "per"), "%v", err)
 				continue
 			}
 			c.Per = u
 		}
 		e, err := feasibility.ParseExpr(r.Measure)
 		if err != nil {
-			ps.Add(At("Costs", r.Row, "measure"), "%v", err)
+			ps.Add(study.At("Costs", r.Row, "measure"), "%v", err)
 			continue
 		}
 		c.Measure = e
 		var f *Facility
 		if c.Facility != "" {
 			if f = p.facility(c.Facility); f == nil {
-				ps.Add(At("Costs", r.Row, "facility"), "no facility named %q", c.Facility)
+				ps.Add(study.At("Costs", r.Row, "facility"), "no facility named %q", c.Facility)
 				continue
 			}
 		}
@@ -880,7 +875,7 @@ func (p *Plan) prepareCosts(ps *Problems) {
 		if f == nil && len(p.Facilities) > 0 {
 			targets = p.Facilities
 		}
-		p.checkDim(ps, e, targets, c.Per.Dim, At("Costs", r.Row, "measure"), At("Costs", r.Row, "per"),
+		p.checkDim(ps, e, targets, c.Per.Dim, study.At("Costs", r.Row, "measure"), study.At("Costs", r.Row, "per"),
 			func(d feasibility.Dimension) string {
 				return fmt.Sprintf("the measure has dimension %s but per is %q (%s)", d, r.Per, c.Per.Dim)
 			})
@@ -888,7 +883,7 @@ func (p *Plan) prepareCosts(ps *Problems) {
 	}
 }
 
-func (p *Plan) buildGrid(ps *Problems) {
+func (p *Plan) buildGrid(ps *study.Problems) {
 	st := p.Settings
 	total := st.Points
 	if st.Axis != "" {
@@ -932,23 +927,23 @@ func geomGrid(a, b float64, n int) []float64 {
 	return g
 }
 
-func (p *Plan) prepareMeasures(ps *Problems) {
+func (p *Plan) prepareMeasures(ps *study.Problems) {
 	for _, r := range p.Study.Measures {
 		m := &PlanMeasure{Name: strings.TrimSpace(r.Measure), Row: r.Row, Unit: feasibility.Unit{Factor: 1}}
 		if m.Name == "" {
-			ps.Add(At("Measures", r.Row, "measure"), "the measure has no name")
+			ps.Add(study.At("Measures", r.Row, "measure"), "the measure has no name")
 			continue
 		}
 		e, err := feasibility.ParseExpr(r.Expression)
 		if err != nil {
-			ps.Add(At("Measures", r.Row, "expression"), "%v", err)
+			ps.Add(study.At("Measures", r.Row, "expression"), "%v", err)
 			continue
 		}
 		m.Expr = e
 		if u := strings.TrimSpace(r.Unit); u != "" && u != "1" {
 			pu, err := feasibility.ParseUnit(u)
 			if err != nil {
-				ps.Add(At("Measures", r.Row, "unit"), "%v", err)
+				ps.Add(study.At("Measures", r.Row, "unit"), "%v", err)
 				continue
 			}
 			m.Unit = pu
@@ -957,7 +952,7 @@ func (p *Plan) prepareMeasures(ps *Problems) {
 		if len(targets) == 0 {
 			targets = []*Facility{nil}
 		}
-		p.checkDim(ps, e, targets, m.Unit.Dim, At("Measures", r.Row, "expression"), At("Measures", r.Row, "unit"),
+		p.checkDim(ps, e, targets, m.Unit.Dim, study.At("Measures", r.Row, "expression"), study.At("Measures", r.Row, "unit"),
 			func(d feasibility.Dimension) string {
 				return fmt.Sprintf("the measure has dimension %s but the unit %q is %s", d, r.Unit, m.Unit.Dim)
 			})
@@ -968,7 +963,7 @@ func (p *Plan) prepareMeasures(ps *Problems) {
 // checkDim dimension-checks a measure for every facility it may be
 // evaluated with: a name it cannot resolve is reported at exprCell, a
 // dimension other than want at unitCell (one problem at most).
-func (p *Plan) checkDim(ps *Problems, e *feasibility.Expr, targets []*Facility, want feasibility.Dimension, exprCell, unitCell Cell, mismatch func(feasibility.Dimension) string) {
+func (p *Plan) checkDim(ps *study.Problems, e *feasibility.Expr, targets []*Facility, want feasibility.Dimension, exprCell, unitCell study.Cell, mismatch func(feasibility.Dimension) string) {
 	for _, f := range targets {
 		d, err := e.Dim(p.dimResolver(f))
 		if errors.Is(err, errFailedName) {

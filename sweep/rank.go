@@ -3,11 +3,13 @@ package sweep
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 	"strconv"
 	"strings"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
 
 // DefaultMismatchThreshold is the size of a relaxed group's mismatch
@@ -78,7 +80,7 @@ func (r Relaxed) Words() string {
 }
 
 // parseRankSettings reads weak_laws, governing_laws and mismatch_threshold.
-func parseRankSettings(s *Study, st *Settings, ps *Problems) {
+func parseRankSettings(s *study.Study, st *Settings, ps *study.Problems) {
 	laws := func(name string) []string {
 		v, ok := s.Settings[name]
 		if !ok {
@@ -141,7 +143,7 @@ func (p *Plan) Rank(srs []*StrategyResult) []RankEntry {
 		var counted, within, weak []string
 		for i := range e.Relaxed {
 			r := &e.Relaxed[i]
-			r.Weak, r.Governing = contains(st.WeakLaws, r.Law), contains(st.GoverningLaws, r.Law)
+			r.Weak, r.Governing = slices.Contains(st.WeakLaws, r.Law), slices.Contains(st.GoverningLaws, r.Law)
 			if r.Weak {
 				weak = append(weak, r.Law)
 				continue
@@ -226,7 +228,7 @@ func worstSize(e RankEntry) float64 {
 func uniq(s []string) []string {
 	var out []string
 	for _, x := range s {
-		if !contains(out, x) {
+		if !slices.Contains(out, x) {
 			out = append(out, x)
 		}
 	}

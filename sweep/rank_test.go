@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"math"
+	"scaleplan/sweep/study"
 	"slices"
 	"strings"
 	"testing"
@@ -18,9 +19,9 @@ import (
 //     160, the same force edge 173.2; g-level kL ≤ 200 does not bind.
 //   - the 1 g model's Froude number: Fr_p/Fr_m = kV/√(kg·kL) = 1/√120,
 //     a mismatch of √120 ≈ 10.95, beyond the default threshold of 10.
-func anchorStudy(t *testing.T, settings ...string) *Study {
+func anchorStudy(t *testing.T, settings ...string) *study.Study {
 	t.Helper()
-	s, err := Load("testdata/anchor")
+	s, err := study.Load("testdata/anchor")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -28,7 +29,7 @@ func anchorStudy(t *testing.T, settings ...string) *Study {
 		name := settings[i]
 		v, ok := s.Settings[name]
 		if !ok {
-			v = Setting{Name: name, Cell: Cell{"Study", 100 + i, 2}}
+			v = study.Setting{Name: name, Cell: study.Cell{Sheet: "Study", Row: 100 + i, Col: 2}}
 		}
 		v.Value = settings[i+1]
 		s.Settings[name] = v

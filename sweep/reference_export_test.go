@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
 
 // TestWriteReferenceTerms writes what testdata/perf/reference.py needs to
@@ -22,7 +23,7 @@ func TestWriteReferenceTerms(t *testing.T) {
 	if studyPath == "" || outPath == "" {
 		t.Skip("set SCALEPLAN_REFERENCE_STUDY and SCALEPLAN_REFERENCE_OUT (testdata/perf/compare.sh does)")
 	}
-	s, err := Load(studyPath)
+	s, err := study.Load(studyPath)
 	if err != nil {
 		t.Fatal(err)
 	}

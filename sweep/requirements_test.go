@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"math"
+	"scaleplan/sweep/study"
 	"testing"
 )
 
@@ -82,7 +83,7 @@ func TestAnyFacilityLargestModel(t *testing.T) {
 // scale as kL^1/2, so V_m·T_m = V_p·T_p/kL): L_tank = (V_p·T_p + 3 L_p)/kL,
 // 12 kn = 12·1852/3600 m/s (the international knot).
 func TestRunLengthRequirementExact(t *testing.T) {
-	res := runStudy(t, Synthetic(50, 0, 2, 1))
+	res := runStudy(t, study.Synthetic(50, 0, 2, 1))
 	c := comboIn(t, res.Strategies[0], "Deepwater tank")
 	r := requirement(t, c, "tank_length", "run length")
 	if !r.Exact || !r.AtLeast {

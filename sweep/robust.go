@@ -13,10 +13,8 @@ import (
 	"gonum.org/v1/gonum/stat/distuv"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
-
-// Distributions an uncertain input may have.
-var Distributions = []string{"normal", "lognormal", "uniform"}
 
 // Uncertain is an input of the study that varies: its nominal value is
 // multiplied, draw by draw, by a factor with a mean (or median) of one.
@@ -55,12 +53,12 @@ func (u *Uncertain) applies(x *combo) bool {
 }
 
 // prepareUncertain reads the Uncertainty sheet.
-func (p *Plan) prepareUncertain(ps *Problems) {
+func (p *Plan) prepareUncertain(ps *study.Problems) {
 	for _, r := range p.Study.Uncertain {
 		in, of := strings.TrimSpace(r.Input), strings.TrimSpace(r.Of)
 		u := &Uncertain{Distribution: strings.ToLower(strings.TrimSpace(r.Distribution)), Row: r.Row}
-		if !slices.Contains(Distributions, u.Distribution) {
-			ps.Add(At("Uncertainty", r.Row, "distribution"), "unknown distribution %q%s", r.Distribution, feasibility.Suggest(u.Distribution, Distributions))
+		if !slices.Contains(study.Distributions, u.Distribution) {
+			ps.Add(study.At("Uncertainty", r.Row, "distribution"), "unknown distribution %q%s", r.Distribution, feasibility.Suggest(u.Distribution, study.Distributions))
 			continue
 		}
 		var nominal float64
@@ -72,14 +70,14 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 				continue // reported at its own row
 			}
 			if !ok {
-				ps.Add(At("Uncertainty", r.Row, "input"), "no prototype item %q%s (name a candidate or a facility in the of column for their inputs)", in, feasibility.Suggest(in, p.ItemOrder))
+				ps.Add(study.At("Uncertainty", r.Row, "input"), "no prototype item %q%s (name a candidate or a facility in the of column for their inputs)", in, feasibility.Suggest(in, p.ItemOrder))
 				continue
 			}
 			u.key, u.Label, nominal, dim = inputKey{inputItem, "", in}, in, it.Value, it.Dim
 		case of == "prototype":
 			v, ok := p.Proto[in]
 			if !ok {
-				ps.Add(At("Uncertainty", r.Row, "input"), "the prototype has no property %q", in)
+				ps.Add(study.At("Uncertainty", r.Row, "input"), "the prototype has no property %q", in)
 				continue
 			}
 			q, _ := feasibility.QuantityNamed(in)
@@ -90,7 +88,7 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 				if c.Name == of {
 					pr, ok := c.Props[in]
 					if !ok {
-						ps.Add(At("Uncertainty", r.Row, "input"), "%s %q has no %s", c.Role, of, in)
+						ps.Add(study.At("Uncertainty", r.Row, "input"), "%s %q has no %s", c.Role, of, in)
 						found = true
 						break
 					}
@@ -101,14 +99,14 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 			if f := p.facility(of); !found && f != nil {
 				v, ok := f.Caps[in]
 				if !ok {
-					ps.Add(At("Uncertainty", r.Row, "input"), "facility %q states no %s", of, in)
+					ps.Add(study.At("Uncertainty", r.Row, "input"), "facility %q states no %s", of, in)
 					continue
 				}
 				cp, _ := p.Catalog.Capability(f.Type, in)
 				u.key, u.Label, nominal, dim, found = inputKey{inputCapability, of, in}, in+" of "+of, v, cp.Dim, true
 			}
 			if !found {
-				ps.Add(At("Uncertainty", r.Row, "of"), "%q is neither blank (a prototype item), prototype, a candidate nor a facility", of)
+				ps.Add(study.At("Uncertainty", r.Row, "of"), "%q is neither blank (a prototype item), prototype, a candidate nor a facility", of)
 				continue
 			}
 			if u.key == (inputKey{}) {
@@ -117,7 +115,7 @@ func (p *Plan) prepareUncertain(ps *Problems) {
 		}
 		rel, err := parseSpread(r.Spread, nominal, dim)
 		if err != nil {
-			ps.Add(At("Uncertainty", r.Row, "spread"), "%v", err)
+			ps.Add(study.At("Uncertainty", r.Row, "spread"), "%v", err)
 			continue
 		}
 		u.Rel = rel

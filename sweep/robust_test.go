@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"math"
+	"scaleplan/sweep/study"
 	"testing"
 
 	"gonum.org/v1/gonum/stat/distuv"
@@ -9,18 +10,18 @@ import (
 
 // closedFormStudy has one products-of-powers limit and one log-normal
 // input, so the probability of feasibility has a closed form.
-func closedFormStudy(samples string) *Study {
-	s := &Study{Name: "closed-form", Settings: map[string]Setting{}}
+func closedFormStudy(samples string) *study.Study {
+	s := &study.Study{Name: "closed-form", Settings: map[string]study.Setting{}}
 	for i, kv := range [][2]string{{"scale_from", "1"}, {"scale_to", "100"}, {"points", "60"}, {"samples", samples}, {"seed", "7"},
 		{"prototype_medium", "water"}} {
-		s.Settings[kv[0]] = Setting{Name: kv[0], Value: kv[1], Cell: Cell{"Study", i + 2, 2}}
+		s.Settings[kv[0]] = study.Setting{Name: kv[0], Value: kv[1], Cell: study.Cell{Sheet: "Study", Row: i + 2, Col: 2}}
 	}
-	s.Prototype = []Item{{Name: "hull_length", Value: "20", Unit: "m", ScalesAs: "length", Row: 2},
+	s.Prototype = []study.Item{{Name: "hull_length", Value: "20", Unit: "m", ScalesAs: "length", Row: 2},
 		{Name: "design_speed", Value: "5", Unit: "m/s", ScalesAs: "velocity", Row: 3}}
-	s.Media = []Candidate{{Name: "water", Entry: "water", Row: 2}}
-	s.Strategies = []StrategyRow{{Strategy: "Froude", Technique: "dominant", Retain: "inertia, gravity", Given: "density, gravity", Row: 2}}
-	s.Limits = []LimitRow{{AppliesTo: "all", Limit: "speed cap", Expression: "design_speed <= 1 m/s", Row: 2}}
-	s.Uncertain = []UncertainRow{{Input: "design_speed", Distribution: "lognormal", Spread: "20%", Row: 2}}
+	s.Media = []study.Candidate{{Name: "water", Entry: "water", Row: 2}}
+	s.Strategies = []study.StrategyRow{{Strategy: "Froude", Technique: "dominant", Retain: "inertia, gravity", Given: "density, gravity", Row: 2}}
+	s.Limits = []study.LimitRow{{AppliesTo: "all", Limit: "speed cap", Expression: "design_speed <= 1 m/s", Row: 2}}
+	s.Uncertain = []study.UncertainRow{{Input: "design_speed", Distribution: "lognormal", Spread: "20%", Row: 2}}
 	return s
 }
 

@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"scaleplan/materials"
+	"scaleplan/sweep/study"
 )
 
 // lawExp returns the exponent of kL in a quantity's scale law for a case.
@@ -249,7 +250,7 @@ func TestScenarioPontoon(t *testing.T) {
 }
 
 func TestScenarioIndex(t *testing.T) {
-	list, err := Scenarios()
+	list, err := study.Scenarios()
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -2,11 +2,11 @@ package sweep
 
 import (
 	"math"
-	"sort"
 	"strconv"
 	"strings"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
 
 // Settings are the parsed rows of the Study sheet.
@@ -40,53 +40,29 @@ type Settings struct {
 	// beyond which a relaxed law is a scale effect (see rank.go).
 	WeakLaws, GoverningLaws []string
 	MismatchThreshold       float64
-	cells                   map[string]Cell
+	cells                   map[string]study.Cell
 }
 
-// settingDefaults lists every setting with its default; an empty default
-// means the setting is optional or required as noted in settingRequired.
-var settingDefaults = map[string]string{
-	"name": "", "purpose": "", "scale_from": "", "scale_to": "", "points": "200",
-	"axis": "", "axis_from": "", "axis_to": "", "axis_points": "25", "axis_spacing": "log",
-	"tolerance": "0.1", "currency": "EUR", "recommend": "largest",
-	"prototype_medium": "", "prototype_medium_conditions": "", "prototype_material": "", "prototype_material_conditions": "",
-	"reference_length": "", "reference_speed": "", "max_points": "100000000", "inputs_date": "",
-	"samples": "0", "seed": "1", "robust_level": "0.95", "unballasted": "",
-	"weak_laws": "", "governing_laws": "", "mismatch_threshold": "10",
-	"predict": "",
-}
-
-var settingRequired = []string{"scale_from", "scale_to"}
-
-func settingNames() []string {
-	names := make([]string, 0, len(settingDefaults))
-	for k := range settingDefaults {
-		names = append(names, k)
-	}
-	sort.Strings(names)
-	return names
-}
-
-func parseSettings(s *Study, ps *Problems) Settings {
-	st := Settings{cells: map[string]Cell{}}
-	get := func(name string) (Setting, bool) {
+func parseSettings(s *study.Study, ps *study.Problems) Settings {
+	st := Settings{cells: map[string]study.Cell{}}
+	get := func(name string) (study.Setting, bool) {
 		v, ok := s.Settings[name]
 		if ok {
 			st.cells[name] = v.Cell
 		}
 		if !ok || strings.TrimSpace(v.Value) == "" {
-			return Setting{Name: name, Value: settingDefaults[name], Cell: Cell{Sheet: "Study"}}, false
+			return study.Setting{Name: name, Value: study.SettingDefaults[name], Cell: study.Cell{Sheet: "Study"}}, false
 		}
 		return v, true
 	}
 	for name, v := range s.Settings {
-		if _, ok := settingDefaults[name]; !ok {
-			ps.Add(Cell{"Study", v.Cell.Row, 1}, "unknown setting %q%s", name, feasibility.Suggest(name, settingNames()))
+		if _, ok := study.SettingDefaults[name]; !ok {
+			ps.Add(study.Cell{Sheet: "Study", Row: v.Cell.Row, Col: 1}, "unknown setting %q%s", name, feasibility.Suggest(name, study.SettingNames()))
 		}
 	}
-	for _, name := range settingRequired {
+	for _, name := range study.SettingRequired {
 		if _, ok := get(name); !ok {
-			ps.Add(Cell{Sheet: "Study"}, "setting %q is missing: add a row %s with a positive number", name, name)
+			ps.Add(study.Cell{Sheet: "Study"}, "setting %q is missing: add a row %s with a positive number", name, name)
 		}
 	}
 	number := func(name string) float64 {
@@ -96,10 +72,10 @@ func parseSettings(s *Study, ps *Problems) Settings {
 		}
 		x, err := strconv.ParseFloat(strings.TrimSpace(v.Value), 64)
 		if err != nil {
-			if y, ok := settingNumber(name, v.Value); ok {
+			if y, ok := study.SettingNumber(name, v.Value); ok {
 				return y
 			}
-			if msg := typedAsClock(v.Value); msg != "" {
+			if msg := study.TypedAsClock(v.Value); msg != "" {
 				ps.Add(v.Cell, "%s: %s", name, msg)
 				return math.NaN()
 			}
@@ -165,7 +141,7 @@ func parseSettings(s *Study, ps *Problems) Settings {
 		if v, ok := s.Settings["axis_from"]; ok && strings.TrimSpace(v.Unit) != "" {
 			u, err := feasibility.ParseUnit(v.Unit)
 			if err != nil {
-				ps.Add(Cell{"Study", v.Cell.Row, 3}, "%v", err)
+				ps.Add(study.Cell{Sheet: "Study", Row: v.Cell.Row, Col: 3}, "%v", err)
 			} else {
 				st.AxisUnit = u
 			}
@@ -205,9 +181,9 @@ func parseSettings(s *Study, ps *Problems) Settings {
 }
 
 // Cell returns the place of a setting's value.
-func (st Settings) Cell(name string) Cell {
+func (st Settings) Cell(name string) study.Cell {
 	if c, ok := st.cells[name]; ok {
 		return c
 	}
-	return Cell{Sheet: "Study"}
+	return study.Cell{Sheet: "Study"}
 }

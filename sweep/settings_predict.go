@@ -4,13 +4,14 @@ import (
 	"strings"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
 
 // parsePredict reads the predict setting: quantities, separated by commas
 // or semicolons, whose prediction rules the memo lists besides those the
 // study measures (the quantities its prototype items scale as and those of
 // its measures). An unknown name is a problem at the setting's cell.
-func parsePredict(v string, at Cell, ps *Problems) []string {
+func parsePredict(v string, at study.Cell, ps *study.Problems) []string {
 	var out []string
 	for _, q := range strings.FieldsFunc(v, func(r rune) bool { return r == ',' || r == ';' }) {
 		q = strings.TrimSpace(q)

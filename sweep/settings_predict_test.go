@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"scaleplan/sweep/study"
 	"slices"
 	"strings"
 	"testing"
@@ -9,8 +10,8 @@ import (
 // TestPredictSetting: the predict setting lists quantities; an unknown
 // one is a problem at the setting's cell with a suggestion.
 func TestPredictSetting(t *testing.T) {
-	at := Cell{"Study", 30, 2}
-	var ps Problems
+	at := study.Cell{Sheet: "Study", Row: 30, Col: 2}
+	var ps study.Problems
 	if got := parsePredict("force; power ,, ", at, &ps); !slices.Equal(got, []string{"force", "power"}) || ps.Err() != nil {
 		t.Errorf("parsePredict: %v, %v", got, ps.Err())
 	}

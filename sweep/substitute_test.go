@@ -8,16 +8,17 @@ import (
 	"testing/fstest"
 
 	"scaleplan/materials"
+	"scaleplan/sweep/study"
 )
 
 // studyOf builds a study from CSV sheets given as text.
-func studyOf(t *testing.T, sheets map[string]string) *Study {
+func studyOf(t *testing.T, sheets map[string]string) *study.Study {
 	t.Helper()
 	fsys := fstest.MapFS{}
 	for name, text := range sheets {
 		fsys[name+".csv"] = &fstest.MapFile{Data: []byte(strings.TrimSpace(text) + "\n")}
 	}
-	s, err := LoadFS(fsys, ".")
+	s, err := study.LoadFS(fsys, ".")
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -154,7 +155,7 @@ dense decoy,solid,modulus,1.6,GPa,invented`)
 
 // armourStudy is an invented breakwater armour study: rock in seawater,
 // modelled in fresh water with PVC or rock "stones".
-func armourStudy(t *testing.T, unballasted, technique string) *Study {
+func armourStudy(t *testing.T, unballasted, technique string) *study.Study {
 	t.Helper()
 	return studyOf(t, map[string]string{
 		"Study": `setting,value,unit,note
@@ -258,7 +259,7 @@ func TestFreeBodyDensity(t *testing.T) {
 // ρ_own k_E/(ρ_p (1+tol)) to ρ_own k_E/(ρ_p (1−tol)).
 func TestFreeBodyInSimulatedStrategy(t *testing.T) {
 	const rhoP, eP, rhoOwn, eOwn, tol = 7850.0, 200e9, 1200.0, 2.4e9, 0.1
-	build := func(unballasted string) *Study {
+	build := func(unballasted string) *study.Study {
 		return studyOf(t, map[string]string{
 			"Study": `setting,value,unit,note
 scale_from,2,,
@@ -295,12 +296,12 @@ weighted,,simulated,"inertia, gravity, elasticity",,,"modulus, gravity",,,,plast
 func TestUnballastedNamesCandidates(t *testing.T) {
 	cases := []struct {
 		value string
-		edit  func(s *Study)
+		edit  func(s *study.Study)
 		want  []string
 	}{
 		{"pvc armor", nil, []string{`Study!B9: unballasted: "pvc armor" is not a candidate`, `(did you mean pvc armour?)`}},
 		{"pvc armour; pvc armour", nil, []string{`unballasted: "pvc armour" is named twice`}},
-		{"rock armour", func(s *Study) { delete(s.Settings, "prototype_material") }, []string{`the prototype has none: set prototype_material`}},
+		{"rock armour", func(s *study.Study) { delete(s.Settings, "prototype_material") }, []string{`the prototype has none: set prototype_material`}},
 	}
 	for _, c := range cases {
 		s := armourStudy(t, c.value, "dominant")
@@ -351,7 +352,7 @@ func TestSubstituteBandRuledOutByOtherLimits(t *testing.T) {
 
 // fluidStudy is an invented study of a barge in a heavy oil (ν_p = 1e-4
 // m²/s) modelled in a test liquid (ν = 1e-6 m²/s), with extra Limits rows.
-func fluidStudy(t *testing.T, limits string) *Study {
+func fluidStudy(t *testing.T, limits string) *study.Study {
 	t.Helper()
 	sheets := map[string]string{
 		"Study": `setting,value,unit,note
@@ -381,7 +382,7 @@ substitute,,substitute,"inertia, gravity, viscosity",,,"density, gravity",,,test
 // polymerStudy is an invented study of a concrete span (E 30 GPa, ρ 2400)
 // modelled in "model polymer", the Custom entry named, under gravity and
 // elasticity with the model's own density; custom adds Custom rows.
-func polymerStudy(t *testing.T, entry, custom string) *Study {
+func polymerStudy(t *testing.T, entry, custom string) *study.Study {
 	t.Helper()
 	return studyOf(t, map[string]string{
 		"Study": `setting,value,unit,note

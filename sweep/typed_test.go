@@ -1,84 +1,16 @@
 package sweep
 
 import (
+	"github.com/xuri/excelize/v2"
 	"math"
+	"scaleplan/sweep/study"
 	"strings"
 	"testing"
-
-	"github.com/xuri/excelize/v2"
 )
 
 // The tests of this file read inputs as people type them: workbook cells
 // by their number format, scales written 1:25, percentages, units in a
 // header, decimal commas, and names with odd white space.
-
-// TestNumFmtKind classifies number format codes. The expected kinds
-// follow the format codes of ECMA-376 Part 1, §18.8.31 (numFmts): y, d and
-// m beside them are date fields, h and s time fields, [h] an elapsed time,
-// quoted text and escaped characters are literal, % a percentage.
-func TestNumFmtKind(t *testing.T) {
-	tests := []struct {
-		code string
-		want cellKind
-	}{
-		{"General", kindNumber},
-		{"0.00", kindNumber},
-		{"#,##0.00 \"€\"", kindNumber},
-		{"0.00E+00", kindNumber},
-		{"@", kindNumber},
-		{"0%", kindPercent},
-		{"0.0%", kindPercent},
-		{"h:mm", kindTime},
-		{"h:mm AM/PM", kindTime},
-		{"h:mm:ss", kindDuration},
-		{"mm:ss", kindDuration},
-		{"[h]:mm:ss", kindDuration},
-		{"[h]:mm", kindDuration},
-		{"yyyy-mm-dd", kindDate},
-		{"d-mmm-yy", kindDate},
-		{"mmm-yy", kindDate},
-		{"m/d/yy h:mm", kindDate},
-		{"[$-409]dddd, mmmm dd, yyyy", kindDate},
-		{"0.00 \"days\"", kindNumber}, // d inside quotes is text
-		{"0\\h", kindNumber},          // an escaped h is text
-		{"[Red]0.00;[Blue]-0.00", kindNumber},
-		{"0.00;\"h\"", kindNumber}, // only the first section counts
-	}
-	for _, tt := range tests {
-		if got := numFmtKind(tt.code); got != tt.want {
-			t.Errorf("numFmtKind(%q) = %v, want %v", tt.code, got, tt.want)
-		}
-	}
-}
-
-// TestCellText turns stored serial numbers back into what was typed. A
-// spreadsheet stores a time as a fraction of a day and a date as days
-// since 1899-12-30 (ECMA-376 Part 1, §18.17.4.1): 1:25 is 85/1440 of a
-// day; 2026-11-30 is day 46356 (45658 is 2025-01-01, plus 365 days of
-// 2025 and 333 days of 2026).
-func TestCellText(t *testing.T) {
-	tests := []struct {
-		raw  string
-		kind cellKind
-		want string
-	}{
-		{"0.059027777777777776", kindTime, "1:25"},
-		{"0.0006944444444444445", kindDuration, "0:01:00"},
-		{"0.0006944444444444445", kindTime, "0:01"},
-		{"1.5", kindDuration, "36:00:00"}, // [h]:mm:ss counts hours on
-		{"46356", kindDate, "2026-11-30"},
-		{"45658", kindDate, "2025-01-01"},
-		{"46356.5", kindDate, "2026-11-30 12:00:00"},
-		{"0.1", kindPercent, "0.1"},
-		{"text", kindDate, "text"},
-		{"-3", kindDate, "-3"},
-	}
-	for _, tt := range tests {
-		if got := cellText(tt.raw, tt.kind, false); got != tt.want {
-			t.Errorf("cellText(%q, %v) = %q, want %q", tt.raw, tt.kind, got, tt.want)
-		}
-	}
-}
 
 // settingCell finds the value cell of a row of a sheet by its first cell.
 func settingCell(t *testing.T, f *excelize.File, sheet, key string) string {
@@ -160,7 +92,7 @@ func TestTypedCSVValues(t *testing.T) {
 		"Estuary  tank ,towing_tank,tank_depth,3,m,\n" +
 		"Estuary\ttank,towing_tank,tank_width,6,m,\n"
 	dir := writeFolder(t, sheets)
-	s, err := Load(dir)
+	s, err := study.Load(dir)
 	checkProblems(t, err, nil)
 	plan, err := prepare(t, s)
 	if err != nil {
@@ -226,7 +158,7 @@ func TestTypedProblems(t *testing.T) {
 			for k, v := range tt.sheets {
 				sheets[k] = v
 			}
-			s, err := Load(writeFolder(t, sheets))
+			s, err := study.Load(writeFolder(t, sheets))
 			if err == nil {
 				_, err = prepare(t, s)
 			}
@@ -247,7 +179,7 @@ func TestTypedProblems(t *testing.T) {
 func TestStudyNameLineBreak(t *testing.T) {
 	sheets := minimalCSV()
 	sheets["Study"] = "setting,value,unit,note\nname,\"tug\n# Forged heading\",,\nscale_from,10,,\nscale_to,50,,\n"
-	s, err := Load(writeFolder(t, sheets))
+	s, err := study.Load(writeFolder(t, sheets))
 	checkProblems(t, err, nil)
 	_, err = prepare(t, s)
 	checkProblems(t, err, []string{"Study!B2: the study name holds a line break: put it on one line (it heads every output)"})

@@ -2,151 +2,12 @@ package sweep
 
 import (
 	"fmt"
-	"path"
-	"slices"
 	"sort"
 	"strings"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
-
-// Warning is something a study says that scaleplan does not use, or uses
-// in a way the user may not expect (§8.1: nothing is dropped silently). A
-// warning does not stop the study; an ambiguous input is a Problem instead.
-type Warning struct {
-	Cell     Cell   // where, when a place is known (Sheet empty otherwise)
-	Strategy string // the strategy it concerns, "" for the whole study
-	Msg      string
-}
-
-// String prints the warning with its place: "Strategies!I4: …".
-func (w Warning) String() string {
-	if w.Cell.Sheet == "" {
-		return w.Msg
-	}
-	return w.Cell.String() + ": " + w.Msg
-}
-
-// Text is the warning as every output says it: a strategy's own warning
-// begins with the strategy's name.
-func (w Warning) Text() string {
-	if w.Strategy != "" {
-		return "strategy " + w.Strategy + ": " + w.String()
-	}
-	return w.String()
-}
-
-// Warnings is a list of warnings in the order they were found.
-type Warnings []Warning
-
-// Add records a warning of the whole study.
-func (ws *Warnings) Add(c Cell, format string, args ...any) {
-	*ws = append(*ws, Warning{Cell: c, Msg: fmt.Sprintf(format, args...)})
-}
-
-// Study returns the warnings that concern the whole study.
-func (ws Warnings) Study() Warnings {
-	var out Warnings
-	for _, w := range ws {
-		if w.Strategy == "" {
-			out = append(out, w)
-		}
-	}
-	return out
-}
-
-// Of returns the warnings of one strategy.
-func (ws Warnings) Of(strategy string) Warnings {
-	var out Warnings
-	for _, w := range ws {
-		if w.Strategy != "" && w.Strategy == strategy {
-			out = append(out, w)
-		}
-	}
-	return out
-}
-
-// Strings returns the warnings as text, each with its place.
-func (ws Warnings) Strings() []string {
-	out := make([]string, len(ws))
-	for i, w := range ws {
-		out[i] = w.String()
-	}
-	return out
-}
-
-// ignoredFile reports whether a file in a study folder is one a user does
-// not put there on purpose: hidden files (.gitkeep, .DS_Store) and the
-// lock files office programs leave beside an open file (~$Limits.csv,
-// .~lock.Limits.csv#).
-func ignoredFile(name string) bool {
-	return strings.HasPrefix(name, ".") || strings.HasPrefix(name, "~$")
-}
-
-// sheetSuggestion says which sheet a stray name may have meant, or lists
-// the sheets.
-func sheetSuggestion(name string, sheets []string) string {
-	s := feasibility.Suggest(name, sheets)
-	if strings.HasPrefix(s, " (did you mean ") {
-		return "; did you mean " + strings.TrimSuffix(strings.TrimPrefix(s, " (did you mean "), ")")
-	}
-	return " (the sheets are " + strings.Join(sheets, ", ") + ")"
-}
-
-// strayCSVFiles warns of every file in a CSV study folder that is no sheet
-// of the study (a misspelt Limit.csv would otherwise be ignored and the
-// window widen), and refuses a sheet present twice under names that differ
-// only in case (Limits.csv and limits.csv: which one counts is ambiguous).
-func strayCSVFiles(names []string, s *Study, ps *Problems) {
-	files := make([]string, len(SheetNames))
-	for i, sh := range SheetNames {
-		files[i] = sh + ".csv"
-	}
-	for _, n := range names {
-		if ignoredFile(n) {
-			continue
-		}
-		if !slices.ContainsFunc(files, func(f string) bool { return strings.EqualFold(f, n) }) {
-			msg := n + " is not a sheet of a study"
-			if strings.EqualFold(path.Ext(n), ".csv") {
-				msg += sheetSuggestion(n, files)
-			} else {
-				msg += " and is not read"
-			}
-			s.Warnings.Add(Cell{}, "%s", msg)
-		}
-	}
-	refuseCaseTwins(names, files, "the folder holds", ps)
-}
-
-// strayWorksheets does the same for the worksheets of a workbook. The
-// Instructions and Lists sheets of the template are part of it.
-func strayWorksheets(list []string, s *Study, ps *Problems) {
-	known := append(append([]string(nil), SheetNames...), instrSheet, listsSheet, choicesSheet)
-	for _, n := range list {
-		if !slices.ContainsFunc(known, func(f string) bool { return strings.EqualFold(f, n) }) {
-			s.Warnings.Add(Cell{}, "the worksheet %q is not a sheet of a study and is not read%s", n, sheetSuggestion(n, SheetNames))
-		}
-	}
-	refuseCaseTwins(list, SheetNames, "the workbook holds the worksheets", ps)
-}
-
-// refuseCaseTwins refuses two names that differ only in case and both
-// stand for one sheet.
-func refuseCaseTwins(names, sheets []string, what string, ps *Problems) {
-	for _, sh := range sheets {
-		var same []string
-		for _, n := range names {
-			if strings.EqualFold(n, sh) {
-				same = append(same, n)
-			}
-		}
-		if len(same) > 1 {
-			sheet := strings.TrimSuffix(sh, ".csv")
-			ps.Add(Cell{Sheet: sheet}, "%s %s: names that differ only in case are one sheet, so which one counts is ambiguous; keep one of them", what, strings.Join(same, " and "))
-		}
-	}
-}
 
 // warnDefaultLimits warns of every default facility limit that is not
 // applied because it names something the study does not have (an item
@@ -203,7 +64,7 @@ func (p *Plan) warnDefaultLimits() {
 			}
 		}
 		if len(skipped) > 0 {
-			p.Warnings.Add(Cell{Sheet: "Prototype"}, "default limits of %s (a %s) are not applied because the study has no item of that name: %s; add the items on the Prototype sheet, or give the limits on the Limits sheet in the study's own names",
+			p.Warnings.Add(study.Cell{Sheet: "Prototype"}, "default limits of %s (a %s) are not applied because the study has no item of that name: %s; add the items on the Prototype sheet, or give the limits on the Limits sheet in the study's own names",
 				f.Name, f.Type, strings.Join(skipped, "; "))
 		}
 	}
@@ -277,7 +138,7 @@ func (p *Plan) warnUnusedCapabilities() {
 					row = r.Row
 				}
 			}
-			p.Warnings.Add(At("Facilities", row, "capability"), "%s of %s is stated but no limit, cost or measure uses it, so it limits nothing; add a limit on the Limits sheet that names it, or remove the row", c, f.Name)
+			p.Warnings.Add(study.At("Facilities", row, "capability"), "%s of %s is stated but no limit, cost or measure uses it, so it limits nothing; add a limit on the Limits sheet that names it, or remove the row", c, f.Name)
 		}
 	}
 }
@@ -285,14 +146,14 @@ func (p *Plan) warnUnusedCapabilities() {
 // addFix records a fixed free choice of a case; the same quantity fixed
 // twice in one cell is refused when the factors differ (which one holds is
 // ambiguous) and a warning when they agree.
-func (p *Plan) addFix(c *PlanCase, q string, k float64, ps *Problems) {
-	cell := At("Strategies", c.Row, "fix")
+func (p *Plan) addFix(c *PlanCase, q string, k float64, ps *study.Problems) {
+	cell := study.At("Strategies", c.Row, "fix")
 	if prev, dup := c.Fix[q]; dup {
 		if prev != k {
 			ps.Add(cell, "%s is fixed twice, at %v and at %v: which one holds is ambiguous; keep one", q, prev, k)
 			return
 		}
-		p.Warnings = append(p.Warnings, Warning{Cell: cell, Strategy: c.Strategy, Msg: fmt.Sprintf("%s=%v is given twice; it is taken once", q, k)})
+		p.Warnings = append(p.Warnings, study.Warning{Cell: cell, Strategy: c.Strategy, Msg: fmt.Sprintf("%s=%v is given twice; it is taken once", q, k)})
 		return
 	}
 	c.Fix[q] = k
@@ -300,10 +161,10 @@ func (p *Plan) addFix(c *PlanCase, q string, k float64, ps *Problems) {
 
 // refuseTwiceUncertain refuses an uncertain input given a second time: its
 // draws would count twice, or one spread would silently win.
-func refuseTwiceUncertain(us []*Uncertain, u *Uncertain, ps *Problems) bool {
+func refuseTwiceUncertain(us []*Uncertain, u *Uncertain, ps *study.Problems) bool {
 	for _, o := range us {
 		if o.key == u.key {
-			ps.Add(At("Uncertainty", u.Row, "input"), "%s is given uncertain twice (also on row %d): which spread holds is ambiguous; keep one row", u.Label, o.Row)
+			ps.Add(study.At("Uncertainty", u.Row, "input"), "%s is given uncertain twice (also on row %d): which spread holds is ambiguous; keep one row", u.Label, o.Row)
 			return true
 		}
 	}

@@ -3,17 +3,16 @@ package sweep
 import (
 	"os"
 	"path/filepath"
+	"scaleplan/sweep/study"
 	"strconv"
 	"strings"
 	"testing"
-
-	"github.com/xuri/excelize/v2"
 )
 
 // hasWarning fails the test unless exactly one warning holds every part.
-func hasWarning(t *testing.T, ws Warnings, parts ...string) Warning {
+func hasWarning(t *testing.T, ws study.Warnings, parts ...string) study.Warning {
 	t.Helper()
-	var found []Warning
+	var found []study.Warning
 	for _, w := range ws {
 		ok := true
 		for _, p := range parts {
@@ -38,7 +37,7 @@ func TestWarnStrayCSVFile(t *testing.T) {
 			t.Fatal(err)
 		}
 	}
-	s, err := Load(dir)
+	s, err := study.Load(dir)
 	checkProblems(t, err, nil)
 	hasWarning(t, s.Warnings, "Limit.csv is not a sheet of a study; did you mean Limits.csv?")
 	hasWarning(t, s.Warnings, "notes.txt is not a sheet of a study and is not read")
@@ -53,62 +52,13 @@ func TestWarnStrayCSVFile(t *testing.T) {
 	if err := os.WriteFile(filepath.Join(anchor, "Limit.csv"), []byte(sheets["Limit"]), 0o644); err != nil {
 		t.Fatal(err)
 	}
-	s, err = Load(anchor)
+	s, err = study.Load(anchor)
 	checkProblems(t, err, nil)
 	plan, err := prepare(t, s)
 	if err != nil {
 		t.Fatal(err)
 	}
 	hasWarning(t, plan.Warnings, "Limit.csv is not a sheet")
-}
-
-func TestWarnStrayWorksheet(t *testing.T) {
-	b := workbook(t, sampleStudy(), func(f *excelize.File) {
-		if _, err := f.NewSheet("Limit"); err != nil {
-			t.Fatal(err)
-		}
-	})
-	s, err := loadBytes(t, b)
-	checkProblems(t, err, nil)
-	hasWarning(t, s.Warnings, `the worksheet "Limit" is not a sheet of a study and is not read; did you mean Limits?`)
-	if len(s.Warnings) != 1 {
-		t.Errorf("the template's own sheets must not warn: %q", s.Warnings.Strings())
-	}
-}
-
-func TestRefuseCaseTwinSheets(t *testing.T) {
-	dir := writeFolder(t, minimalCSV())
-	if err := os.WriteFile(filepath.Join(dir, "limits.csv"), []byte("applies_to,limit,expression,source\n"), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	if err := os.WriteFile(filepath.Join(dir, "Limits.csv"), []byte("applies_to,limit,expression,source\n"), 0o644); err != nil {
-		t.Fatal(err)
-	}
-	if names, _ := os.ReadDir(dir); len(names) != 5 {
-		t.Skip("the file system ignores case")
-	}
-	_, err := Load(dir)
-	checkProblems(t, err, []string{"Limits: the folder holds Limits.csv and limits.csv: names that differ only in case are one sheet, so which one counts is ambiguous; keep one of them"})
-}
-
-func TestRefuseCaseTwinWorksheets(t *testing.T) {
-	// A spreadsheet program refuses such names; a generated file may hold
-	// them. Rename a second sheet in the workbook's XML.
-	b := workbook(t, sampleStudy(), func(f *excelize.File) {
-		if _, err := f.NewSheet("LIMITX"); err != nil {
-			t.Fatal(err)
-		}
-	})
-	b = rezip(t, b, func(name string, data []byte) []byte {
-		if name == "xl/workbook.xml" {
-			return []byte(strings.Replace(string(data), `name="LIMITX"`, `name="limits"`, 1))
-		}
-		return data
-	})
-	_, err := loadBytes(t, b)
-	if err == nil || !strings.Contains(err.Error(), "Limits: the workbook holds the worksheets Limits and limits") {
-		t.Errorf("got %v", err)
-	}
 }
 
 func TestWarnDefaultLimitNotApplied(t *testing.T) {
@@ -151,7 +101,7 @@ func TestWarnDefaultLimitNotApplied(t *testing.T) {
 
 func TestWarnUnusedCapability(t *testing.T) {
 	s := anchorStudy(t)
-	s.Facilities = append(s.Facilities, FacilityRow{Facility: "Clay bin", Type: "soil_bin", Capability: "bin_length", Value: "30", Unit: "m", Row: 16})
+	s.Facilities = append(s.Facilities, study.FacilityRow{Facility: "Clay bin", Type: "soil_bin", Capability: "bin_length", Value: "30", Unit: "m", Row: 16})
 	plan, err := prepare(t, s)
 	if err != nil {
 		t.Fatal(err)
@@ -171,7 +121,7 @@ func TestWarnUnusedCapability(t *testing.T) {
 
 // conductorFixed is the conductor with its velocity scale fixed in the
 // Strategies cell instead of swept.
-func conductorFixed(t *testing.T, fix string, keepAxis bool) *Study {
+func conductorFixed(t *testing.T, fix string, keepAxis bool) *study.Study {
 	s := scenario(t, "conductor")
 	if !keepAxis {
 		for _, k := range []string{"axis", "axis_from", "axis_to", "axis_points", "axis_spacing"} {

@@ -7,10 +7,10 @@ import (
 	"strings"
 
 	"github.com/urfave/cli/v2"
-
 	"scaleplan/materials"
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 func checkCommand() *cli.Command {
@@ -69,8 +69,8 @@ func checkCommand() *cli.Command {
 // checkResult is what check finds in one study.
 type checkResult struct {
 	Study      string
-	Problems   sweep.Problems
-	Warnings   sweep.Warnings
+	Problems   study.Problems
+	Warnings   study.Warnings
 	Strategies int
 	Points     int
 }
@@ -78,7 +78,7 @@ type checkResult struct {
 // checkStudy loads and prepares one study.
 func checkStudy(path string, cat *sweep.FacilityCatalog) checkResult {
 	r := checkResult{Study: path}
-	s, err := sweep.Load(path)
+	s, err := study.Load(path)
 	if s != nil {
 		r.Warnings = s.Warnings
 	}
@@ -94,11 +94,11 @@ func checkStudy(path string, cat *sweep.FacilityCatalog) checkResult {
 			}
 		}
 	}
-	var ps sweep.Problems
+	var ps study.Problems
 	if errors.As(err, &ps) {
 		r.Problems = ps
 	} else {
-		r.Problems = sweep.Problems{{Msg: err.Error()}}
+		r.Problems = study.Problems{{Msg: err.Error()}}
 	}
 	return r
 }

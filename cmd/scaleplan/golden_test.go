@@ -8,7 +8,7 @@ import (
 	"strings"
 	"testing"
 
-	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // TestGoldenRuns runs the built-in scenarios (scaleplan run, as text and
@@ -21,7 +21,7 @@ func TestGoldenRuns(t *testing.T) {
 	if testing.Short() {
 		t.Skip("runs every scenario")
 	}
-	list, err := sweep.Scenarios()
+	list, err := study.Scenarios()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -50,7 +50,7 @@ func TestGoldenRuns(t *testing.T) {
 		t.Fatalf("%d scenarios, %d text blocks, %d JSON records", len(list), len(order), len(records))
 	}
 	for i, sc := range list {
-		s, err := sweep.LoadScenario(sc.Name)
+		s, err := study.LoadScenario(sc.Name)
 		if err != nil {
 			t.Fatal(err)
 		}

@@ -6,9 +6,9 @@ import (
 	"strings"
 
 	"github.com/urfave/cli/v2"
-
 	"scaleplan/materials"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 func initCommand() *cli.Command {
@@ -24,7 +24,7 @@ func initCommand() *cli.Command {
 			&cli.StringFlag{Name: "synthetic", Usage: "write a large invented study instead, POINTSxAXISxCANDIDATESxSTRATEGIES (e.g. 2000x100x40x4), for performance figures"},
 		},
 		Action: func(c *cli.Context) error {
-			list, err := sweep.Scenarios()
+			list, err := study.Scenarios()
 			if err != nil {
 				return err
 			}
@@ -45,15 +45,15 @@ func initCommand() *cli.Command {
 			if name == "" {
 				name = list[0].Name
 			}
-			var s *sweep.Study
+			var s *study.Study
 			if spec := c.String("synthetic"); spec != "" {
 				var n [4]int
 				if k, err := fmt.Sscanf(spec, "%dx%dx%dx%d", &n[0], &n[1], &n[2], &n[3]); err != nil || k != 4 || n[0] < 2 || n[1] < 0 || n[2] < 1 || n[3] < 1 {
 					return usagef("--synthetic wants POINTSxAXISxCANDIDATESxSTRATEGIES, e.g. 2000x100x40x4 (axis 0 for none), got %q", spec)
 				}
-				s, name = sweep.Synthetic(n[0], n[1], n[2], n[3]), "synthetic "+spec
+				s, name = study.Synthetic(n[0], n[1], n[2], n[3]), "synthetic "+spec
 			} else {
-				s, err = sweep.LoadScenario(name)
+				s, err = study.LoadScenario(name)
 				if err != nil {
 					return err
 				}
@@ -63,9 +63,9 @@ func initCommand() *cli.Command {
 				if lerr != nil {
 					return lerr
 				}
-				err = sweep.WriteXLSX(path, s, lists)
+				err = study.WriteXLSX(path, s, lists)
 			} else {
-				err = sweep.WriteCSV(path, s)
+				err = study.WriteCSV(path, s)
 			}
 			if err != nil {
 				return err
@@ -76,14 +76,14 @@ func initCommand() *cli.Command {
 	}
 }
 
-func templateLists() (sweep.Lists, error) {
+func templateLists() (study.Lists, error) {
 	lib, err := materials.Default()
 	if err != nil {
-		return sweep.Lists{}, err
+		return study.Lists{}, err
 	}
 	cat, err := sweep.NewFacilityCatalog()
 	if err != nil {
-		return sweep.Lists{}, err
+		return study.Lists{}, err
 	}
 	return sweep.DefaultLists(lib, cat), nil
 }

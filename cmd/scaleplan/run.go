@@ -12,9 +12,9 @@ import (
 	"syscall"
 
 	"github.com/urfave/cli/v2"
-
 	"scaleplan/report"
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 func runCommand() *cli.Command {
@@ -49,16 +49,16 @@ func runCommand() *cli.Command {
 			var jobs []sweep.Job
 			var inputs []string
 			if c.NArg() == 0 {
-				list, err := sweep.Scenarios()
+				list, err := study.Scenarios()
 				if err != nil {
 					return err
 				}
 				for _, s := range list {
-					jobs = append(jobs, sweep.Job{Name: s.Name, Load: func() (*sweep.Study, error) { return sweep.LoadScenario(s.Name) }, MaxPoints: maxPoints})
+					jobs = append(jobs, sweep.Job{Name: s.Name, Load: func() (*study.Study, error) { return study.LoadScenario(s.Name) }, MaxPoints: maxPoints})
 				}
 			}
 			for _, path := range c.Args().Slice() {
-				jobs = append(jobs, sweep.Job{Name: path, Load: func() (*sweep.Study, error) { return sweep.Load(path) }, MaxPoints: maxPoints})
+				jobs = append(jobs, sweep.Job{Name: path, Load: func() (*study.Study, error) { return study.Load(path) }, MaxPoints: maxPoints})
 				inputs = append(inputs, path)
 			}
 			out, noFiles := c.String("out"), c.Bool("no-files")

@@ -8,14 +8,14 @@ import (
 	"strings"
 	"testing"
 
-	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // TestInitCheckRun writes every scenario with init (as a workbook and as a
 // CSV folder), checks it and runs it; the workbook and the CSV folder must
 // give identical results.
 func TestInitCheckRun(t *testing.T) {
-	list, err := sweep.Scenarios()
+	list, err := study.Scenarios()
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -60,7 +60,7 @@ func mustRun(t *testing.T, want int, args ...string) string {
 
 func TestInitList(t *testing.T) {
 	out := mustRun(t, 0, "init", "--list")
-	list, _ := sweep.Scenarios()
+	list, _ := study.Scenarios()
 	for _, sc := range list {
 		if !strings.Contains(out, sc.Name) || !strings.Contains(out, sc.Description) {
 			t.Errorf("init --list lacks %s: %q", sc.Name, out)
@@ -87,9 +87,9 @@ func TestInitRefusesExisting(t *testing.T) {
 func TestRunDemo(t *testing.T) {
 	out := filepath.Join(t.TempDir(), "out")
 	text := mustRun(t, 0, "run", "--out", out)
-	list, _ := sweep.Scenarios()
+	list, _ := study.Scenarios()
 	for _, sc := range list {
-		s, _ := sweep.LoadScenario(sc.Name)
+		s, _ := study.LoadScenario(sc.Name)
 		name := s.Settings["name"].Value
 		for _, ext := range []string{".xlsx", ".memo.md"} {
 			if _, err := os.Stat(filepath.Join(out, name+ext)); err != nil {

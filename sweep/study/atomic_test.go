@@ -1,4 +1,4 @@
-package sweep
+package study
 
 import (
 	"errors"

@@ -1,4 +1,4 @@
-package sweep
+package study
 
 import (
 	"archive/zip"
@@ -6,6 +6,7 @@ import (
 	"compress/flate"
 	"errors"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"io"
 	"os"
 	"path/filepath"
@@ -13,8 +14,6 @@ import (
 	"strings"
 	"testing"
 	"testing/fstest"
-
-	"github.com/xuri/excelize/v2"
 )
 
 // sampleStudy has rows in every sheet, blank rows between some of them,

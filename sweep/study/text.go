@@ -1,4 +1,4 @@
-package sweep
+package study
 
 import (
 	"fmt"
@@ -286,7 +286,7 @@ func ratioScale(v string) (float64, bool) {
 
 // typedAsClock explains a value that is a time or a date where a number
 // is needed, or returns "".
-func typedAsClock(v string) string {
+func TypedAsClock(v string) string {
 	v = strings.TrimSpace(v)
 	switch {
 	case clockText.MatchString(v):
@@ -302,10 +302,10 @@ func typedAsClock(v string) string {
 // and s as the unit. Values that are not durations are returned as given;
 // a duration where no time is expected, or with a unit that is not a
 // time, is an error.
-func timeValue(value, unit string, want feasibility.Dimension) (string, string, error) {
+func TimeValue(value, unit string, want feasibility.Dimension) (string, string, error) {
 	secs, ok := clockSeconds(value)
 	if !ok {
-		if msg := typedAsClock(value); msg != "" {
+		if msg := TypedAsClock(value); msg != "" {
 			return value, unit, fmt.Errorf("%s", msg)
 		}
 		return value, unit, nil
@@ -316,13 +316,13 @@ func timeValue(value, unit string, want feasibility.Dimension) (string, string, 
 		// h:mm:ss is a duration whatever time unit the row names.
 		return strconv.FormatFloat(secs, 'g', -1, 64), "s", nil
 	}
-	return value, unit, fmt.Errorf("%s", typedAsClock(value))
+	return value, unit, fmt.Errorf("%s", TypedAsClock(value))
 }
 
 // settingNumber reads a setting's number in the forms a person types
 // beside the plain one: a scale as a ratio (scale_from = 1:25) and a
 // fraction as a percentage (tolerance = 10%).
-func settingNumber(name, v string) (float64, bool) {
+func SettingNumber(name, v string) (float64, bool) {
 	switch name {
 	case "scale_from", "scale_to":
 		return ratioScale(v)

@@ -1,9 +1,10 @@
-package sweep
+package study
 
 import (
 	"bytes"
 	"encoding/csv"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"io"
 	"os"
 	"path/filepath"
@@ -11,8 +12,6 @@ import (
 	"strconv"
 	"strings"
 	"unicode/utf8"
-
-	"github.com/xuri/excelize/v2"
 )
 
 // record is one row of a sheet as written: its row number and its cells in

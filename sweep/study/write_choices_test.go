@@ -1,13 +1,12 @@
-package sweep
+package study
 
 import (
+	"github.com/xuri/excelize/v2"
 	"path/filepath"
 	"regexp"
 	"slices"
 	"strings"
 	"testing"
-
-	"github.com/xuri/excelize/v2"
 
 	"scaleplan/materials"
 )
@@ -42,14 +41,10 @@ func TestTemplateDropDowns(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	cat, err := NewFacilityCatalog()
-	if err != nil {
-		t.Fatal(err)
-	}
 	lists := testLists()
-	lists.Capabilities = map[string][]string{}
-	for _, ty := range cat.Types() {
-		lists.Capabilities[ty] = cat.CapabilityNames(ty)
+	lists.Capabilities = map[string][]string{
+		"towing_tank": {"tank_length", "tank_depth", "carriage_speed_max"},
+		"wind_tunnel": {"section_width", "section_height", "speed_max"},
 	}
 	path := filepath.Join(t.TempDir(), "t.xlsx")
 	if err := WriteXLSX(path, s, lists); err != nil {
@@ -71,7 +66,7 @@ func TestTemplateDropDowns(t *testing.T) {
 		sheet, column string
 		values        []string
 	}{
-		{"Study", "setting", settingNames()},
+		{"Study", "setting", SettingNames()},
 		{"Custom", "kind", kinds},
 		{"Strategies", "correction", Corrections},
 		{"Uncertainty", "distribution", Distributions},
@@ -110,14 +105,14 @@ func TestTemplateDropDowns(t *testing.T) {
 	for _, dn := range f.GetDefinedName() {
 		names[dn.Name] = dn.RefersTo
 	}
-	for _, ty := range cat.Types() {
+	for ty, caps := range lists.Capabilities {
 		ref, ok := names["caps_"+ty]
 		if !ok {
 			t.Errorf("no capability list for type %s", ty)
 			continue
 		}
-		if got := choicesRange(t, f, ref); !slices.Equal(got, cat.CapabilityNames(ty)) {
-			t.Errorf("capabilities of %s: %v, want %v", ty, got, cat.CapabilityNames(ty))
+		if got := choicesRange(t, f, ref); !slices.Equal(got, caps) {
+			t.Errorf("capabilities of %s: %v, want %v", ty, got, caps)
 		}
 	}
 	// The template still reads back as the study it was written from.

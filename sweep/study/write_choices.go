@@ -1,31 +1,14 @@
-package sweep
+package study
 
 import (
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"sort"
 	"strconv"
 	"strings"
 
-	"github.com/xuri/excelize/v2"
-
-	"scaleplan/feasibility"
 	"scaleplan/materials"
 )
-
-// DefaultLists are the lists a template offers: the laws, quantities,
-// library entries, facility types with their capabilities and techniques.
-func DefaultLists(lib *materials.Library, cat *FacilityCatalog) Lists {
-	var entries []string
-	for _, e := range lib.Entries() {
-		entries = append(entries, e.Name)
-	}
-	caps := map[string][]string{}
-	for _, t := range cat.Types() {
-		caps[t] = cat.CapabilityNames(t)
-	}
-	return Lists{Laws: feasibility.LawNames(), Quantities: feasibility.QuantityNames(), Entries: entries,
-		FacilityTypes: cat.Types(), Techniques: Techniques, Capabilities: caps}
-}
 
 // choicesSheet is a hidden sheet with the lists behind the template's
 // drop-downs for the enumerations (settings, kinds, distributions, …) and
@@ -67,7 +50,7 @@ func writeChoices(f *excelize.File, s *Study, lists Lists) error {
 		}
 	}
 	cols := []choiceList{
-		{"setting", settingNames()},
+		{"setting", SettingNames()},
 		{"recommend", []string{"largest", "cheapest"}},
 		{"axis_spacing", []string{"log", "linear"}},
 		{"kind", kinds},

@@ -1,4 +1,4 @@
-package sweep
+package study
 
 import (
 	"strings"
@@ -31,6 +31,6 @@ func FuzzTypedText(f *testing.F) {
 		}
 		_ = fromDecimalComma(s)
 		_, _ = clockSeconds(s)
-		_ = typedAsClock(s)
+		_ = TypedAsClock(s)
 	})
 }

@@ -1,4 +1,4 @@
-package sweep
+package study
 
 import (
 	"archive/zip"
@@ -6,14 +6,13 @@ import (
 	"encoding/xml"
 	"errors"
 	"fmt"
+	"github.com/xuri/excelize/v2"
 	"io"
 	"os"
 	"path"
 	"path/filepath"
 	"strconv"
 	"strings"
-
-	"github.com/xuri/excelize/v2"
 )
 
 // maxParts bounds the number of parts (zip entries) of a workbook: a study
