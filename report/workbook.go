@@ -17,7 +17,6 @@ import (
 
 	"scaleplan/feasibility"
 	"scaleplan/sweep"
-	"scaleplan/sweep/study"
 )
 
 // fixedTime makes workbooks byte-identical from run to run.
@@ -567,102 +566,6 @@ func writeLimits(f *excelize.File, res *sweep.Result, bold int) error {
 		}
 	}
 	return s.close(true)
-}
-
-// writeInputs echoes every sheet of the study as it was read.
-func writeInputs(f *excelize.File, res *sweep.Result, bold int) error {
-	s, err := newSheet(f, "Inputs", nil, []float64{18, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22, 22}, bold)
-	if err != nil {
-		return err
-	}
-	in := res.Plan.Study
-	block := func(sheet string, rows [][]string) error {
-		head := []any{excelize.Cell{StyleID: bold, Value: "sheet " + sheet}}
-		for _, c := range study.Columns[sheet] {
-			head = append(head, excelize.Cell{StyleID: bold, Value: c})
-		}
-		if err := s.add(head...); err != nil {
-			return err
-		}
-		for _, r := range rows {
-			cells := []any{""}
-			for _, v := range r {
-				cells = append(cells, v)
-			}
-			if err := s.add(cells...); err != nil {
-				return err
-			}
-		}
-		return s.add()
-	}
-	var rows [][]string
-	names := make([]string, 0, len(in.Settings))
-	for n := range in.Settings {
-		names = append(names, n)
-	}
-	sort.Strings(names)
-	for _, n := range names {
-		v := in.Settings[n]
-		rows = append(rows, []string{n, v.Value, v.Unit})
-	}
-	if err := block("Study", rows); err != nil {
-		return err
-	}
-	rows = nil
-	for _, r := range in.Prototype {
-		rows = append(rows, []string{r.Name, r.Value, r.Unit, r.ScalesAs})
-	}
-	if err := block("Prototype", rows); err != nil {
-		return err
-	}
-	for _, sh := range []struct {
-		name string
-		rows []study.Candidate
-	}{{"Media", in.Media}, {"Materials", in.Materials}} {
-		rows = nil
-		for _, r := range sh.rows {
-			rows = append(rows, []string{r.Name, r.Entry, r.Conditions})
-		}
-		if err := block(sh.name, rows); err != nil {
-			return err
-		}
-	}
-	rows = nil
-	for _, r := range in.Custom {
-		rows = append(rows, []string{r.Entry, r.Kind, r.Property, r.Value, r.Unit, r.Source})
-	}
-	if err := block("Custom", rows); err != nil {
-		return err
-	}
-	rows = nil
-	for _, r := range in.Facilities {
-		rows = append(rows, []string{r.Facility, r.Type, r.Capability, r.Value, r.Unit})
-	}
-	if err := block("Facilities", rows); err != nil {
-		return err
-	}
-	rows = nil
-	for _, r := range in.Strategies {
-		rows = append(rows, []string{r.Strategy, r.Case, r.Technique, r.Retain, r.Relax, r.Untie, r.Given, r.Tuned, r.Fix, r.Media, r.Materials, r.Facilities, r.Correction})
-	}
-	if err := block("Strategies", rows); err != nil {
-		return err
-	}
-	rows = nil
-	for _, r := range in.Limits {
-		rows = append(rows, []string{r.AppliesTo, r.Limit, r.Expression, r.Source})
-	}
-	if err := block("Limits", rows); err != nil {
-		return err
-	}
-	rows = nil
-	for _, r := range in.Costs {
-		rows = append(rows, []string{r.Item, r.Coefficient, r.Per, r.Measure, r.Facility})
-	}
-	if err := block("Costs", rows); err != nil {
-		return err
-	}
-	return s.close(false)
 }
 
 // requirementLabel names a requirement column.

@@ -571,7 +571,10 @@ func wbCheckInputs(t *testing.T, rows [][]string, res *sweep.Result) {
 		{"Facilities", len(in.Facilities), "facility type capability value unit note"},
 		{"Strategies", len(in.Strategies), "strategy case technique retain relax untie given tuned fix media materials facilities correction note"},
 		{"Limits", len(in.Limits), "applies_to limit expression source"},
-		{"Costs", len(in.Costs), "item coefficient per measure facility note"}}
+		{"Costs", len(in.Costs), "item coefficient per measure facility note"},
+		// The Measures and Uncertainty sheets were once left out of the echo.
+		{"Measures", len(in.Measures), "measure expression unit note"},
+		{"Uncertainty", len(in.Uncertain), "input of distribution spread note"}}
 	for _, w := range want {
 		h := slices.IndexFunc(rows, func(r []string) bool { return wbAt(r, 0) == "sheet "+w.sheet })
 		if h < 0 {

@@ -1,6 +1,10 @@
 package study
 
-import "sort"
+import (
+	"sort"
+
+	"scaleplan/materials"
+)
 
 // Techniques label strategies in the report (spec §4).
 var Techniques = []string{"complete", "dominant", "special_cases", "distorted", "simulated", "substitute"}
@@ -34,4 +38,15 @@ func SettingNames() []string {
 	}
 	sort.Strings(names)
 	return names
+}
+
+// materialKinds are the kinds a custom entry may be.
+var materialKinds = kindNames()
+
+func kindNames() []string {
+	var kinds []string
+	for _, k := range materials.Kinds() {
+		kinds = append(kinds, string(k))
+	}
+	return kinds
 }

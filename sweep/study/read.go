@@ -326,29 +326,10 @@ func (r *sheetReader) store(n int, v []string) {
 		}
 		r.settings[key] = n
 		s.Settings[key] = Setting{Name: name, Value: v[1], Unit: v[2], Cell: Cell{r.sheet, n, 2}}
-	case "Prototype":
-		s.Prototype = append(s.Prototype, Item{Name: v[0], Value: v[1], Unit: v[2], ScalesAs: v[3], Row: n})
-	case "Media":
-		s.Media = append(s.Media, Candidate{Name: v[0], Entry: v[1], Conditions: v[2], Row: n})
-	case "Materials":
-		s.Materials = append(s.Materials, Candidate{Name: v[0], Entry: v[1], Conditions: v[2], Row: n})
-	case "Custom":
-		s.Custom = append(s.Custom, CustomRow{Entry: v[0], Kind: v[1], Property: v[2], Value: v[3], Unit: v[4], Source: v[5], Row: n})
-	case "Facilities":
-		s.Facilities = append(s.Facilities, FacilityRow{Facility: v[0], Type: v[1], Capability: v[2], Value: v[3], Unit: v[4], Row: n})
-	case "Strategies":
-		s.Strategies = append(s.Strategies, StrategyRow{
-			Strategy: v[0], Case: v[1], Technique: v[2],
-			Retain: v[3], Relax: v[4], Untie: v[5], Given: v[6], Tuned: v[7], Fix: v[8],
-			Media: v[9], Materials: v[10], Facilities: v[11], Correction: v[12], Row: n,
-		})
-	case "Limits":
-		s.Limits = append(s.Limits, LimitRow{AppliesTo: v[0], Limit: v[1], Expression: v[2], Source: v[3], Row: n})
-	case "Costs":
-		s.Costs = append(s.Costs, CostRow{Item: v[0], Coefficient: v[1], Per: v[2], Measure: v[3], Facility: v[4], Row: n})
-	case "Measures":
-		s.Measures = append(s.Measures, MeasureRow{Measure: v[0], Expression: v[1], Unit: v[2], Row: n})
-	case "Uncertainty":
-		s.Uncertain = append(s.Uncertain, UncertainRow{Input: v[0], Of: v[1], Distribution: v[2], Spread: v[3], Row: n})
+	default:
+		if sh, ok := SheetOf(r.sheet); ok {
+			sh.store(s, n, v)
+		}
+
 	}
 }

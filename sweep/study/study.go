@@ -5,29 +5,6 @@ import (
 	"strings"
 )
 
-// Sheet names of a study, in the order they appear in a workbook. A folder
-// study holds one NAME.csv per sheet.
-var SheetNames = []string{"Study", "Prototype", "Media", "Materials", "Custom", "Facilities", "Strategies", "Limits", "Costs", "Measures", "Uncertainty"}
-
-// Columns of each sheet, in order; the header row of a sheet must name them
-// (extra columns to the right are ignored, so users may add notes).
-var Columns = map[string][]string{
-	"Study":       {"setting", "value", "unit", "note"},
-	"Prototype":   {"item", "value", "unit", "scales_as", "note"},
-	"Media":       {"name", "library_entry", "conditions", "note"},
-	"Materials":   {"name", "library_entry", "conditions", "note"},
-	"Custom":      {"entry", "kind", "property", "value", "unit", "source"},
-	"Facilities":  {"facility", "type", "capability", "value", "unit", "note"},
-	"Strategies":  {"strategy", "case", "technique", "retain", "relax", "untie", "given", "tuned", "fix", "media", "materials", "facilities", "correction", "note"},
-	"Limits":      {"applies_to", "limit", "expression", "source"},
-	"Costs":       {"item", "coefficient", "per", "measure", "facility", "note"},
-	"Measures":    {"measure", "expression", "unit", "note"},
-	"Uncertainty": {"input", "of", "distribution", "spread", "note"},
-}
-
-// RequiredSheets must be present; the others may be missing or empty.
-var RequiredSheets = []string{"Study", "Prototype", "Strategies"}
-
 // Cell is a place in a study: sheet, 1-based row and 1-based column.
 type Cell struct {
 	Sheet    string

@@ -63,48 +63,6 @@ func normSpace(v string) string {
 	return strings.TrimSpace(strings.Join(lines, "\n"))
 }
 
-// nameColumns are the columns that name something a report shows as a
-// heading or a label: a line break there is refused.
-var nameColumns = map[string][]string{
-	"Study":      {"setting"},
-	"Media":      {"name"},
-	"Materials":  {"name"},
-	"Custom":     {"entry"},
-	"Facilities": {"facility"},
-	"Strategies": {"strategy", "case"},
-	"Limits":     {"limit"},
-	"Costs":      {"item"},
-	"Measures":   {"measure"},
-}
-
-// numberColumns hold numbers: in a CSV file separated by semicolons, a
-// decimal comma is read there (1,5 is 1.5).
-var numberColumns = map[string][]string{
-	"Study":       {"value"},
-	"Prototype":   {"value"},
-	"Custom":      {"value"},
-	"Facilities":  {"value"},
-	"Costs":       {"coefficient"},
-	"Uncertainty": {"spread"},
-}
-
-// unitColumns are the sheets where a unit in the header of the value
-// column is read: the value column and its unit column.
-var unitColumns = map[string][2]string{
-	"Prototype":  {"value", "unit"},
-	"Custom":     {"value", "unit"},
-	"Facilities": {"value", "unit"},
-}
-
-func isColumn(list []string, col string) bool {
-	for _, c := range list {
-		if c == col {
-			return true
-		}
-	}
-	return false
-}
-
 // decimalComma matches a number written with a decimal comma.
 // (or a scale 1:12,5).
 var decimalComma = regexp.MustCompile(`^([0-9]+\s*:\s*)?[+-]?[0-9]*,[0-9]+([eE][+-]?[0-9]+)?\s*%?$`)
@@ -146,7 +104,7 @@ func unitNote(u string) bool {
 // ignored, so it is refused.
 func (r *sheetReader) checkHeaderUnits(cells []string) bool {
 	ok := true
-	uc, hasUnits := unitColumns[r.sheet]
+	uc, hasUnits := unitColumns(r.sheet)
 	for i, col := range r.cols {
 		if i >= len(cells) {
 			break
@@ -185,7 +143,7 @@ func (r *sheetReader) applyHeaderUnit(n int, vals []string) bool {
 	if len(r.units) == 0 {
 		return true
 	}
-	uc := unitColumns[r.sheet]
+	uc, _ := unitColumns(r.sheet)
 	vi, ui := -1, -1
 	for i, col := range r.cols {
 		switch col {
@@ -237,10 +195,10 @@ func (r *sheetReader) tidyCell(col, v string) (string, string) {
 		return v, hiddenMessage(ch)
 	}
 	v = normSpace(v)
-	if strings.Contains(v, "\n") && isColumn(nameColumns[r.sheet], col) {
+	if strings.Contains(v, "\n") && isKind(r.sheet, col, Name) {
 		return v, "a name holds a line break: put it on one line (a name is a heading or label in every output)"
 	}
-	if r.decimalComma && isColumn(numberColumns[r.sheet], col) {
+	if r.decimalComma && isKind(r.sheet, col, Number, Value) {
 		v = fromDecimalComma(v)
 	}
 	return v, ""

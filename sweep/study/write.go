@@ -8,91 +8,22 @@ import (
 	"io"
 	"os"
 	"path/filepath"
-	"sort"
 	"strconv"
 	"strings"
 	"unicode/utf8"
 )
 
-// record is one row of a sheet as written: its row number and its cells in
-// the order of Columns.
-type record struct {
-	row   int
-	cells []string
-}
-
-// sheetRecords lists the rows of one sheet of s. Settings come in the
-// order of their rows, then of their names; notes are not part of a Study,
-// so note columns are written empty.
-func sheetRecords(s *Study, sheet string) []record {
-	var recs []record
-	add := func(row int, cells ...string) {
-		full := make([]string, len(Columns[sheet]))
-		copy(full, cells)
-		recs = append(recs, record{row, full})
-	}
-	switch sheet {
-	case "Study":
-		keys := make([]string, 0, len(s.Settings))
-		for k := range s.Settings {
-			keys = append(keys, k)
-		}
-		sort.Slice(keys, func(i, j int) bool {
-			a, b := s.Settings[keys[i]], s.Settings[keys[j]]
-			if a.Cell.Row != b.Cell.Row {
-				return a.Cell.Row < b.Cell.Row
-			}
-			return keys[i] < keys[j]
-		})
-		for _, k := range keys {
-			set := s.Settings[k]
-			name := set.Name
-			if name == "" {
-				name = k
-			}
-			add(set.Cell.Row, name, set.Value, set.Unit)
-		}
-	case "Prototype":
-		for _, v := range s.Prototype {
-			add(v.Row, v.Name, v.Value, v.Unit, v.ScalesAs)
-		}
-	case "Media":
-		for _, v := range s.Media {
-			add(v.Row, v.Name, v.Entry, v.Conditions)
-		}
-	case "Materials":
-		for _, v := range s.Materials {
-			add(v.Row, v.Name, v.Entry, v.Conditions)
-		}
-	case "Custom":
-		for _, v := range s.Custom {
-			add(v.Row, v.Entry, v.Kind, v.Property, v.Value, v.Unit, v.Source)
-		}
-	case "Facilities":
-		for _, v := range s.Facilities {
-			add(v.Row, v.Facility, v.Type, v.Capability, v.Value, v.Unit)
-		}
-	case "Strategies":
-		for _, v := range s.Strategies {
-			add(v.Row, v.Strategy, v.Case, v.Technique, v.Retain, v.Relax, v.Untie, v.Given, v.Tuned, v.Fix,
-				v.Media, v.Materials, v.Facilities, v.Correction)
-		}
-	case "Limits":
-		for _, v := range s.Limits {
-			add(v.Row, v.AppliesTo, v.Limit, v.Expression, v.Source)
-		}
-	case "Costs":
-		for _, v := range s.Costs {
-			add(v.Row, v.Item, v.Coefficient, v.Per, v.Measure, v.Facility)
-		}
-	case "Measures":
-		for _, v := range s.Measures {
-			add(v.Row, v.Measure, v.Expression, v.Unit)
-		}
-	case "Uncertainty":
-		for _, v := range s.Uncertain {
-			add(v.Row, v.Input, v.Of, v.Distribution, v.Spread)
-		}
+// sheetRecords lists the rows of one sheet of s, each with as many cells
+// as the sheet has columns. Settings come in the order of their rows, then
+// of their names; notes are not part of a Study, so note columns are
+// written empty.
+func sheetRecords(s *Study, sheet string) []Record {
+	sh, _ := SheetOf(sheet)
+	recs := sh.Rows(s)
+	for i, r := range recs {
+		full := make([]string, len(sh.Columns))
+		copy(full, r.Cells)
+		recs[i].Cells = full
 	}
 	placeRows(recs)
 	return recs
@@ -101,14 +32,14 @@ func sheetRecords(s *Study, sheet string) []record {
 // placeRows gives every record its row: the row it was read from when the
 // rows still ascend (so that a study read and written again keeps its cell
 // names, blank rows included), else the next free row. Row 1 is the header.
-func placeRows(recs []record) {
+func placeRows(recs []Record) {
 	next := 2
 	for i := range recs {
-		r := recs[i].row
+		r := recs[i].Row
 		if r < next || r > MaxRows {
 			r = next
 		}
-		recs[i].row = r
+		recs[i].Row = r
 		next = r + 1
 	}
 }
@@ -132,12 +63,12 @@ func encodeCSV(s *Study, sheet string) ([]byte, error) {
 	blank := make([]string, len(cols))
 	row := 1
 	for _, rec := range sheetRecords(s, sheet) {
-		for row++; row < rec.row; row++ {
+		for row++; row < rec.Row; row++ {
 			if err := w.Write(blank); err != nil {
 				return nil, err
 			}
 		}
-		if err := w.Write(rec.cells); err != nil {
+		if err := w.Write(rec.Cells); err != nil {
 			return nil, err
 		}
 	}
@@ -312,11 +243,11 @@ func writeSheet(f *excelize.File, s *Study, sheet string, bold int) error {
 		return err
 	}
 	for _, rec := range sheetRecords(s, sheet) {
-		for i, v := range rec.cells {
+		for i, v := range rec.Cells {
 			if v == "" {
 				continue
 			}
-			if err := setCell(f, sheet, i+1, rec.row, v); err != nil {
+			if err := setCell(f, sheet, i+1, rec.Row, v); err != nil {
 				return err
 			}
 			widths[i] = max(widths[i], widthOf(v))

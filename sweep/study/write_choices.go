@@ -6,8 +6,6 @@ import (
 	"sort"
 	"strconv"
 	"strings"
-
-	"scaleplan/materials"
 )
 
 // choicesSheet is a hidden sheet with the lists behind the template's
@@ -37,10 +35,6 @@ func writeChoices(f *excelize.File, s *Study, lists Lists) error {
 	if _, err := f.NewSheet(choicesSheet); err != nil {
 		return err
 	}
-	var kinds []string
-	for _, k := range materials.Kinds() {
-		kinds = append(kinds, string(k))
-	}
 	applies := append([]string{"all"}, lists.FacilityTypes...)
 	seen := map[string]bool{}
 	for _, fr := range s.Facilities {
@@ -50,13 +44,13 @@ func writeChoices(f *excelize.File, s *Study, lists Lists) error {
 		}
 	}
 	cols := []choiceList{
-		{"setting", SettingNames()},
+		{"setting", listOf("Study", "setting")},
 		{"recommend", []string{"largest", "cheapest"}},
 		{"axis_spacing", []string{"log", "linear"}},
-		{"kind", kinds},
-		{"correction", Corrections},
+		{"kind", listOf("Custom", "kind")},
+		{"correction", listOf("Strategies", "correction")},
 		{"applies_to", applies},
-		{"distribution", Distributions},
+		{"distribution", listOf("Uncertainty", "distribution")},
 	}
 	types := make([]string, 0, len(lists.Capabilities))
 	for t := range lists.Capabilities {
@@ -140,4 +134,11 @@ func writeChoices(f *excelize.File, s *Study, lists Lists) error {
 // spreadsheet library writes as it is given.
 func xmlText(s string) string {
 	return strings.NewReplacer("&", "&amp;", `"`, "&quot;", "<", "&lt;", ">", "&gt;").Replace(s)
+}
+
+// listOf is the list of values a column of a sheet takes (Sheets).
+func listOf(sheet, col string) []string {
+	sh, _ := SheetOf(sheet)
+	c, _ := sh.column(col)
+	return c.List
 }
