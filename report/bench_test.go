@@ -4,9 +4,10 @@ import (
 	"bytes"
 	"context"
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"io"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
 
 	"scaleplan/materials"
 	"scaleplan/sweep"

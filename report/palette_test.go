@@ -1,12 +1,13 @@
 package report
 
 import (
-	"github.com/xuri/excelize/v2"
 	"image/color"
 	"math"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
 
 	"scaleplan/sweep"
 	"scaleplan/sweep/study"

@@ -3,11 +3,12 @@ package report_test
 import (
 	"context"
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"math"
 	"strconv"
 	"strings"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
 
 	"scaleplan/materials"
 	"scaleplan/sweep"

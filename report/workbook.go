@@ -5,7 +5,6 @@ import (
 	"bytes"
 	"context"
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"image/png"
 	"io"
 	"math"
@@ -14,6 +13,8 @@ import (
 	"regexp"
 	"sort"
 	"strings"
+
+	"github.com/xuri/excelize/v2"
 
 	"scaleplan/feasibility"
 	"scaleplan/sweep"

@@ -6,7 +6,6 @@ import (
 	"context"
 	"encoding/csv"
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"io"
 	"math"
 	"net/url"
@@ -19,6 +18,8 @@ import (
 	"testing"
 	"time"
 	"unicode/utf8"
+
+	"github.com/xuri/excelize/v2"
 
 	"scaleplan/report"
 	"scaleplan/sweep"

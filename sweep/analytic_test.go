@@ -2,8 +2,9 @@ package sweep
 
 import (
 	"math"
-	"scaleplan/sweep/study"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // TestAxisChoiceByHand checks the second-axis value the sweep chooses for

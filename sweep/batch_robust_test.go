@@ -3,10 +3,11 @@ package sweep
 import (
 	"context"
 	"errors"
-	"scaleplan/sweep/study"
 	"strings"
 	"sync/atomic"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // tugJob is a job running the tug scenario with its points changed (when

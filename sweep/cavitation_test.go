@@ -2,8 +2,9 @@ package sweep
 
 import (
 	"math"
-	"scaleplan/sweep/study"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // The depressurised-tank case of spec §3.6 through a study: a propeller in

@@ -5,8 +5,9 @@ import (
 	"math"
 	"runtime"
 	"runtime/debug"
-	"scaleplan/sweep/study"
 	"strconv"
+
+	"scaleplan/sweep/study"
 )
 
 // Bounds of what a sweep may span. A model 1000 times the prototype or a

@@ -6,9 +6,10 @@ import (
 	"math"
 	"runtime"
 	"runtime/debug"
-	"scaleplan/sweep/study"
 	"strings"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // withSetting returns the tug study with settings changed (value, unit).

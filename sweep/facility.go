@@ -5,9 +5,12 @@ import (
 	"embed"
 	"encoding/csv"
 	"fmt"
+	"slices"
 	"sort"
+	"strings"
 
 	"scaleplan/feasibility"
+	"scaleplan/sweep/study"
 )
 
 //go:embed data/capabilities.csv data/default_limits.csv
@@ -123,4 +126,96 @@ func (c *FacilityCatalog) CapabilityNames(t string) []string {
 // included.
 func (c *FacilityCatalog) DefaultLimits(t string) []DefaultLimit {
 	return append(append([]DefaultLimit(nil), c.limits[t]...), c.limits[AnyType]...)
+}
+
+func (p *Plan) prepareFacilities(ps *study.Problems) {
+	byName := map[string]*Facility{}
+	for _, r := range p.Study.Facilities {
+		name := strings.TrimSpace(r.Facility)
+		if name == "" {
+			ps.Add(study.At("Facilities", r.Row, "facility"), "the facility name is empty")
+			continue
+		}
+		f, ok := byName[name]
+		typ := strings.TrimSpace(r.Type)
+		if !ok {
+			if !p.Catalog.HasType(typ) {
+				ps.Add(study.At("Facilities", r.Row, "type"), "unknown facility type %q%s", typ, feasibility.Suggest(typ, p.Catalog.Types()))
+				byName[name] = &Facility{Name: name}
+				continue
+			}
+			f = &Facility{Name: name, Type: typ, Caps: map[string]float64{}, CapUnits: map[string]string{}, Row: r.Row}
+			byName[name] = f
+			p.Facilities = append(p.Facilities, f)
+		} else if f.Type == "" {
+			continue
+		} else if typ != "" && typ != f.Type {
+			ps.Add(study.At("Facilities", r.Row, "type"), "facility %q is a %s on row %d; one facility has one type", name, f.Type, f.Row)
+			continue
+		}
+		capName := strings.TrimSpace(r.Capability)
+		cp, ok := p.Catalog.Capability(f.Type, capName)
+		if !ok {
+			ps.Add(study.At("Facilities", r.Row, "capability"), "a %s has no capability %q%s", f.Type, capName, feasibility.Suggest(capName, p.Catalog.CapabilityNames(f.Type)))
+			continue
+		}
+		if _, dup := f.Caps[capName]; dup {
+			ps.Add(study.At("Facilities", r.Row, "capability"), "capability %s of %q is set twice", capName, name)
+			continue
+		}
+		value, unit, err := study.TimeValue(r.Value, r.Unit, cp.Dim)
+		if err != nil {
+			ps.Add(study.At("Facilities", r.Row, "value"), "%v", err)
+			p.failed.add(name, capName)
+			continue
+		}
+		v, u, err := feasibility.ParseValue(strings.TrimSpace(value + " " + unit))
+		if err != nil {
+			ps.Add(study.At("Facilities", r.Row, "value"), "%v", err)
+			p.failed.add(name, capName)
+			continue
+		}
+		if u.Text != "" && !u.Dim.Equal(cp.Dim) {
+			ps.Add(study.At("Facilities", r.Row, "unit"), "unit %q does not fit %s (needs %s, got %s; e.g. %s)", u.Text, capName, cp.Dim, u.Dim, cp.Unit)
+			p.failed.add(name, capName)
+			continue
+		}
+		if !(v > 0) {
+			ps.Add(study.At("Facilities", r.Row, "value"), "%s must be positive, got %v", capName, v)
+			p.failed.add(name, capName)
+			continue
+		}
+		f.Caps[capName] = v
+		f.CapUnits[capName] = cp.Unit
+	}
+}
+
+func (p *Plan) pickFacilities(list string, cell study.Cell, ps *study.Problems) []*Facility {
+	names := splitNames(list)
+	if len(names) == 0 {
+		return p.Facilities
+	}
+	known := make([]string, len(p.Facilities))
+	for i, f := range p.Facilities {
+		known[i] = f.Name
+	}
+	var out []*Facility
+	for _, n := range names {
+		i := slices.Index(known, n)
+		if i < 0 {
+			ps.Add(cell, "no facility named %q on the Facilities sheet%s", n, feasibility.Suggest(n, known))
+			continue
+		}
+		out = append(out, p.Facilities[i])
+	}
+	return out
+}
+
+func (p *Plan) facility(name string) *Facility {
+	for _, f := range p.Facilities {
+		if f.Name == name {
+			return f
+		}
+	}
+	return nil
 }

@@ -10,11 +10,12 @@ import (
 	"math"
 	"os"
 	"path/filepath"
-	"scaleplan/sweep/study"
 	"sort"
 	"strconv"
 	"strings"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // The scenario golden records every built-in scenario's windows (edges at

@@ -1,10 +1,11 @@
 package sweep
 
 import (
-	"scaleplan/sweep/study"
 	"slices"
 	"strings"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // TestUncertainCapabilityOfAFacilityWithAColon: an uncertain capability

@@ -3,9 +3,10 @@ package sweep
 import (
 	"os"
 	"path/filepath"
-	"scaleplan/sweep/study"
 	"strings"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 func prepareErr(t *testing.T, s *study.Study) string {

@@ -358,3 +358,53 @@ func (p *Plan) gravityMismatch(cs *PlanCase, m feasibility.Mismatch, v feasibili
 	}
 	return 0, false
 }
+
+// better prefers a window that allows a larger model, then a wider one.
+func better(a, b Window) bool {
+	if a.Empty() {
+		return false
+	}
+	if b.Empty() {
+		return true
+	}
+	if a.Largest() != b.Largest() {
+		return a.Largest() < b.Largest()
+	}
+	return width(a) > width(b)
+}
+
+func width(w Window) float64 {
+	s := 0.0
+	for _, iv := range w {
+		s += math.Log10(iv.Hi / iv.Lo)
+	}
+	return s
+}
+
+// best picks the recommended combination of a strategy.
+func (p *Plan) best(sr *StrategyResult) *ComboResult {
+	pool := sr.Combos
+	if len(sr.Joint) > 0 {
+		pool = sr.Joint
+	}
+	var b *ComboResult
+	for _, c := range pool {
+		if c.Window.Empty() || c.Err != "" {
+			continue
+		}
+		if b == nil {
+			b = c
+			continue
+		}
+		if p.Settings.Recommend == "cheapest" && !math.IsNaN(c.Cost) && !math.IsNaN(b.Cost) {
+			if c.Cost < b.Cost {
+				b = c
+			}
+			continue
+		}
+		if c.Recommended < b.Recommended {
+			b = c
+		}
+	}
+	return b
+}

@@ -2,10 +2,11 @@ package sweep
 
 import (
 	"math"
-	"scaleplan/sweep/study"
 	"slices"
 	"strings"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // anchorStudy is an invented drag anchor in soft clay (testdata/anchor):

@@ -2,8 +2,9 @@ package sweep
 
 import (
 	"math"
-	"scaleplan/sweep/study"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 func requirement(t *testing.T, c *ComboResult, capability, limit string) Requirement {

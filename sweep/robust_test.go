@@ -2,10 +2,11 @@ package sweep
 
 import (
 	"math"
-	"scaleplan/sweep/study"
 	"testing"
 
 	"gonum.org/v1/gonum/stat/distuv"
+
+	"scaleplan/sweep/study"
 )
 
 // closedFormStudy has one products-of-powers limit and one log-normal

@@ -1,11 +1,13 @@
 package sweep
 
 import (
-	"github.com/xuri/excelize/v2"
 	"math"
-	"scaleplan/sweep/study"
 	"strings"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
+
+	"scaleplan/sweep/study"
 )
 
 // The tests of this file read inputs as people type them: workbook cells

@@ -3,10 +3,11 @@ package sweep
 import (
 	"os"
 	"path/filepath"
-	"scaleplan/sweep/study"
 	"strconv"
 	"strings"
 	"testing"
+
+	"scaleplan/sweep/study"
 )
 
 // hasWarning fails the test unless exactly one warning holds every part.

@@ -7,6 +7,7 @@ import (
 	"strings"
 
 	"github.com/urfave/cli/v2"
+
 	"scaleplan/materials"
 	"scaleplan/report"
 	"scaleplan/sweep"

@@ -6,6 +6,7 @@ import (
 	"strings"
 
 	"github.com/urfave/cli/v2"
+
 	"scaleplan/materials"
 	"scaleplan/sweep"
 	"scaleplan/sweep/study"

@@ -12,6 +12,7 @@ import (
 	"syscall"
 
 	"github.com/urfave/cli/v2"
+
 	"scaleplan/report"
 	"scaleplan/sweep"
 	"scaleplan/sweep/study"

@@ -2,10 +2,11 @@ package study
 
 import (
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"math"
 	"strconv"
 	"strings"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // cellKind is what a workbook cell's number format says its number is.

@@ -4,12 +4,13 @@ import (
 	"archive/zip"
 	"bytes"
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"hash/crc32"
 	"strings"
 	"testing"
 	"testing/fstest"
 	"unicode/utf8"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // checkRead checks what any read must give: a study, problems that name a

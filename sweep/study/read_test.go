@@ -6,7 +6,6 @@ import (
 	"compress/flate"
 	"errors"
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"io"
 	"os"
 	"path/filepath"
@@ -14,6 +13,8 @@ import (
 	"strings"
 	"testing"
 	"testing/fstest"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // sampleStudy has rows in every sheet, blank rows between some of them,

@@ -1,11 +1,12 @@
 package study
 
 import (
-	"github.com/xuri/excelize/v2"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // hasWarning fails the test unless exactly one warning holds every part.

@@ -4,13 +4,14 @@ import (
 	"bytes"
 	"encoding/csv"
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"io"
 	"os"
 	"path/filepath"
 	"strconv"
 	"strings"
 	"unicode/utf8"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // sheetRecords lists the rows of one sheet of s, each with as many cells

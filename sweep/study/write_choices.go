@@ -2,10 +2,11 @@ package study
 
 import (
 	"fmt"
-	"github.com/xuri/excelize/v2"
 	"sort"
 	"strconv"
 	"strings"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // choicesSheet is a hidden sheet with the lists behind the template's

@@ -1,12 +1,13 @@
 package study
 
 import (
-	"github.com/xuri/excelize/v2"
 	"path/filepath"
 	"regexp"
 	"slices"
 	"strings"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
 
 	"scaleplan/materials"
 )

@@ -1,9 +1,10 @@
 package study
 
 import (
-	"github.com/xuri/excelize/v2"
 	"math"
 	"unicode/utf8"
+
+	"github.com/xuri/excelize/v2"
 )
 
 // instrCharsPerLine is about how many characters of the default font fit

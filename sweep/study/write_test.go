@@ -2,13 +2,14 @@ package study
 
 import (
 	"bytes"
-	"github.com/xuri/excelize/v2"
 	"os"
 	"path/filepath"
 	"reflect"
 	"sort"
 	"strings"
 	"testing"
+
+	"github.com/xuri/excelize/v2"
 )
 
 func testLists() Lists {
