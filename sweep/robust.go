@@ -188,165 +188,20 @@ type InputGain struct {
 // change) and each draw is a sum; other limits keep their nominal set.
 // It returns nil when ctx is done (checked every drawsPerCheck draws).
 func (o *sweepOut) robust(ctx context.Context, us []float64, seed uint64, index int) *Robust {
-	x := o.combo
-	p := x.plan
-	var inputs []*Uncertain
-	for _, u := range p.Uncertain {
-		if u.applies(x) {
-			inputs = append(inputs, u)
-		}
-	}
+	p := o.combo.plan
 	R := &Robust{Samples: p.Settings.Samples, Level: p.Settings.RobustLevel}
-	nl := len(o.limits)
-	sens := make([][]float64, len(inputs)) // [input][limit] change of A per decade
-	for i, u := range inputs {
-		y, err := p.newComboDrawn(x.cas, x.medium, x.material, x.fac, x.axis, map[inputKey]float64{u.key: 10})
-		if err != nil {
-			continue
-		}
-		lim, _, err := y.limitsFor()
-		if err != nil || len(lim) != nl {
-			continue
-		}
-		sens[i] = make([]float64, nl)
-		for j := range lim {
-			if lim[j].info.Linear && o.limits[j].info.Linear {
-				sens[i][j] = lim[j].info.A - o.limits[j].info.A
-			}
+	d := &draws{ctx: ctx, o: o, us: us, n: R.Samples}
+	for _, u := range p.Uncertain {
+		if u.applies(o.combo) {
+			d.inputs = append(d.inputs, u)
 		}
 	}
-	// The nominal set of the limits that are not products of powers.
-	u0, u1 := us[0], us[len(us)-1]
-	fixed := []uInterval{{u0, u1, RangeLimit, RangeLimit}}
-	hasNonlinear := false
-	for _, l := range o.limits {
-		if !l.info.Linear && l.set != nil {
-			fixed = intersect(fixed, l.set)
-			hasNonlinear = true
-		}
+	d.sensitivities()
+	R.Note = d.nominalFixed()
+	if !d.draw(rand.NewPCG(seed, uint64(index)+1)) {
+		return nil
 	}
-	if hasNonlinear {
-		R.Note = "limits that are not products of powers keep their nominal feasible set"
-	}
-	if len(o.conditions) > 0 {
-		if R.Note != "" {
-			R.Note += "; "
-		}
-		R.Note += "similarity conditions are taken at their nominal values"
-	}
-	n := R.Samples
-	deltas := make([][]float64, n)
-	src := rand.NewPCG(seed, uint64(index)+1)
-	for s := range deltas {
-		if s%drawsPerCheck == 0 && ctx.Err() != nil {
-			return nil
-		}
-		deltas[s] = make([]float64, len(inputs))
-		for i, u := range inputs {
-			f := u.draw(src)
-			if f <= 0 {
-				f = 1e-300
-			}
-			deltas[s][i] = math.Log10(f)
-		}
-	}
-	condOK := !o.window.Empty() || len(o.conditions) == 0
-	sample := func(skip int) (prob []float64, fails [][]int) {
-		count := make([]int, len(us)+1)
-		fails = make([][]int, nl)
-		for j := range fails {
-			fails[j] = make([]int, len(us)+1)
-		}
-		A := make([]float64, nl)
-		for s := 0; s < n; s++ {
-			if s%drawsPerCheck == 0 && ctx.Err() != nil {
-				return nil, nil
-			}
-			for j, l := range o.limits {
-				A[j] = l.info.A
-				for i := range inputs {
-					if i != skip && sens[i] != nil {
-						A[j] += sens[i][j] * deltas[s][i]
-					}
-				}
-			}
-			lo, hi, loL, hiL, empty := u0, u1, -1, -1, -1
-			for j, l := range o.limits {
-				if !l.info.Linear {
-					continue
-				}
-				b := l.info.B
-				switch {
-				case b == 0:
-					if A[j] < 0 && empty < 0 {
-						empty = j
-					}
-				case b > 0:
-					if e := -A[j] / b; e > lo {
-						lo, loL = e, j
-					}
-				default:
-					if e := -A[j] / b; e < hi {
-						hi, hiL = e, j
-					}
-				}
-			}
-			// Grid points inside [lo, hi] and the nominal fixed set are
-			// feasible; the rest fail at the edge's limit.
-			first := sort.SearchFloat64s(us, lo)
-			last := sort.Search(len(us), func(i int) bool { return us[i] > hi }) - 1
-			if empty >= 0 || !condOK || lo > hi {
-				j := empty
-				if j < 0 {
-					j = loL
-				}
-				if j >= 0 {
-					fails[j][0]++
-					fails[j][len(us)]--
-				}
-				continue
-			}
-			if first <= last {
-				count[first]++
-				count[last+1]--
-			}
-			if loL >= 0 && first > 0 {
-				fails[loL][0]++
-				fails[loL][first]--
-			}
-			if hiL >= 0 && last+1 < len(us) {
-				fails[hiL][last+1]++
-				fails[hiL][len(us)]--
-			}
-		}
-		prob = make([]float64, len(us))
-		c := 0
-		for i := range us {
-			c += count[i]
-			prob[i] = float64(c) / float64(n)
-		}
-		for j := range fails {
-			f := 0
-			for i := range us {
-				f += fails[j][i]
-				fails[j][i] = f
-			}
-		}
-		// Scales outside the nominal fixed set never count as feasible.
-		for i, u := range us {
-			in := false
-			for _, iv := range fixed {
-				if u >= iv.lo && u <= iv.hi {
-					in = true
-				}
-			}
-			if !in {
-				prob[i] = 0
-			}
-		}
-		return prob, fails
-	}
-	prob, fails := sample(-1)
+	prob, fails := d.sample(-1)
 	if prob == nil {
 		return nil // interrupted
 	}
@@ -364,17 +219,17 @@ func (o *sweepOut) robust(ctx context.Context, us []float64, seed uint64, index 
 		}
 	}
 	for _, q := range prob {
-		if se := math.Sqrt(q * (1 - q) / float64(n)); se > R.StdErr {
+		if se := math.Sqrt(q * (1 - q) / float64(d.n)); se > R.StdErr {
 			R.StdErr = se
 		}
 	}
 	R.Window = probWindow(us, prob, R.Level)
 	base := width(R.Window)
-	for i, u := range inputs {
-		if sens[i] == nil {
+	for i, u := range d.inputs {
+		if d.sens[i] == nil {
 			continue
 		}
-		pi, _ := sample(i)
+		pi, _ := d.sample(i)
 		if pi == nil {
 			return nil // interrupted
 		}
@@ -382,6 +237,207 @@ func (o *sweepOut) robust(ctx context.Context, us []float64, seed uint64, index 
 	}
 	sort.SliceStable(R.Sensitivity, func(a, b int) bool { return R.Sensitivity[a].Gain > R.Sensitivity[b].Gain })
 	return R
+}
+
+// draws are the draws of the uncertain inputs of one combination and what
+// sampling them needs.
+type draws struct {
+	ctx    context.Context
+	o      *sweepOut
+	us     []float64 // the grid, log10 kL
+	n      int       // the number of draws
+	inputs []*Uncertain
+	sens   [][]float64 // [input][limit] change of A per decade (nil: the input is not used)
+	fixed  []uInterval // the nominal feasible set of the limits that are not products of powers
+	deltas [][]float64 // [draw][input] log10 of the drawn factor
+}
+
+// sensitivities finds each input's effect on the linear limits: the change
+// of their A when the input is ten times its nominal value.
+func (d *draws) sensitivities() {
+	x, limits := d.o.combo, d.o.limits
+	d.sens = make([][]float64, len(d.inputs))
+	for i, u := range d.inputs {
+		y, err := x.plan.newComboDrawn(x.cas, x.medium, x.material, x.fac, x.axis, map[inputKey]float64{u.key: 10})
+		if err != nil {
+			continue
+		}
+		lim, _, err := y.limitsFor()
+		if err != nil || len(lim) != len(limits) {
+			continue
+		}
+		d.sens[i] = make([]float64, len(limits))
+		for j := range lim {
+			if lim[j].info.Linear && limits[j].info.Linear {
+				d.sens[i][j] = lim[j].info.A - limits[j].info.A
+			}
+		}
+	}
+}
+
+// nominalFixed keeps the nominal set of the limits that are not products
+// of powers, and returns the note that says what sampling does not vary.
+func (d *draws) nominalFixed() string {
+	d.fixed = []uInterval{{d.us[0], d.us[len(d.us)-1], RangeLimit, RangeLimit}}
+	var notes []string
+	hasNonlinear := false
+	for _, l := range d.o.limits {
+		if !l.info.Linear && l.set != nil {
+			d.fixed = intersect(d.fixed, l.set)
+			hasNonlinear = true
+		}
+	}
+	if hasNonlinear {
+		notes = append(notes, "limits that are not products of powers keep their nominal feasible set")
+	}
+	if len(d.o.conditions) > 0 {
+		notes = append(notes, "similarity conditions are taken at their nominal values")
+	}
+	return strings.Join(notes, "; ")
+}
+
+// draw draws every input n times. It returns false when ctx is done.
+func (d *draws) draw(src rand.Source) bool {
+	d.deltas = make([][]float64, d.n)
+	for s := range d.deltas {
+		if s%drawsPerCheck == 0 && d.ctx.Err() != nil {
+			return false
+		}
+		d.deltas[s] = make([]float64, len(d.inputs))
+		for i, u := range d.inputs {
+			f := u.draw(src)
+			if f <= 0 {
+				f = 1e-300
+			}
+			d.deltas[s][i] = math.Log10(f)
+		}
+	}
+	return true
+}
+
+// sample evaluates the draws, every input but skip (-1: none) varying: the
+// probability that each grid scale is feasible, and for each limit how
+// many draws it fails at each scale. It returns nil when ctx is done.
+func (d *draws) sample(skip int) (prob []float64, fails [][]int) {
+	us, nl := d.us, len(d.o.limits)
+	count := make([]int, len(us)+1) // differences: +1 where a draw's window starts, -1 past its end
+	fails = make([][]int, nl)
+	for j := range fails {
+		fails[j] = make([]int, len(us)+1)
+	}
+	condOK := !d.o.window.Empty() || len(d.o.conditions) == 0
+	A := make([]float64, nl)
+	for s := 0; s < d.n; s++ {
+		if s%drawsPerCheck == 0 && d.ctx.Err() != nil {
+			return nil, nil
+		}
+		d.margins(A, s, skip)
+		lo, hi, loL, hiL, empty := d.edges(A)
+		// Grid points inside [lo, hi] and the nominal fixed set are
+		// feasible; the rest fail at the edge's limit.
+		first := sort.SearchFloat64s(us, lo)
+		last := sort.Search(len(us), func(i int) bool { return us[i] > hi }) - 1
+		if empty >= 0 || !condOK || lo > hi {
+			j := empty
+			if j < 0 {
+				j = loL
+			}
+			if j >= 0 {
+				fails[j][0]++
+				fails[j][len(us)]--
+			}
+			continue
+		}
+		if first <= last {
+			count[first]++
+			count[last+1]--
+		}
+		if loL >= 0 && first > 0 {
+			fails[loL][0]++
+			fails[loL][first]--
+		}
+		if hiL >= 0 && last+1 < len(us) {
+			fails[hiL][last+1]++
+			fails[hiL][len(us)]--
+		}
+	}
+	return d.probability(count), cumulate(fails, len(us))
+}
+
+// margins sets A to every limit's intercept in draw s, input skip kept
+// at its nominal value.
+func (d *draws) margins(A []float64, s, skip int) {
+	for j, l := range d.o.limits {
+		A[j] = l.info.A
+		for i := range d.inputs {
+			if i != skip && d.sens[i] != nil {
+				A[j] += d.sens[i][j] * d.deltas[s][i]
+			}
+		}
+	}
+}
+
+// edges finds a draw's window [lo, hi] of the linear limits (margin A +
+// B·u ≥ 0) with the limits at its edges (-1: the grid's end), or a limit
+// that fails everywhere (empty ≥ 0).
+func (d *draws) edges(A []float64) (lo, hi float64, loL, hiL, empty int) {
+	lo, hi, loL, hiL, empty = d.us[0], d.us[len(d.us)-1], -1, -1, -1
+	for j, l := range d.o.limits {
+		if !l.info.Linear {
+			continue
+		}
+		b := l.info.B
+		switch {
+		case b == 0:
+			if A[j] < 0 && empty < 0 {
+				empty = j
+			}
+		case b > 0:
+			if e := -A[j] / b; e > lo {
+				lo, loL = e, j
+			}
+		default:
+			if e := -A[j] / b; e < hi {
+				hi, hiL = e, j
+			}
+		}
+	}
+	return lo, hi, loL, hiL, empty
+}
+
+// probability turns the counts (differences) into the share of draws
+// feasible at each scale; scales outside the nominal fixed set never count
+// as feasible.
+func (d *draws) probability(count []int) []float64 {
+	prob := make([]float64, len(d.us))
+	c := 0
+	for i, u := range d.us {
+		c += count[i]
+		prob[i] = float64(c) / float64(d.n)
+		in := false
+		for _, iv := range d.fixed {
+			if u >= iv.lo && u <= iv.hi {
+				in = true
+			}
+		}
+		if !in {
+			prob[i] = 0
+		}
+	}
+	return prob
+}
+
+// cumulate turns each row of differences into running sums over the n
+// grid points.
+func cumulate(diffs [][]int, n int) [][]int {
+	for j := range diffs {
+		f := 0
+		for i := 0; i < n; i++ {
+			f += diffs[j][i]
+			diffs[j][i] = f
+		}
+	}
+	return diffs
 }
 
 // probWindow returns the scales whose probability reaches level, with

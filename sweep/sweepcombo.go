@@ -181,7 +181,6 @@ func limitWindow(limits []compiled, us []float64, keep func(compiled) bool) []uI
 // It returns false when ctx is done before the cost curve is complete.
 func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 	x := o.combo
-	p := x.plan
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
 	if o.window.Empty() && o.us != nil {
 		if s := x.bandFailing(o.limits, o.us, o.condU); s != "" {
@@ -198,6 +197,38 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 		return true
 	}
 	r.Largest = r.Window.Largest()
+	if !x.fillCosts(ctx, r) {
+		return false
+	}
+	ln := math.Log(r.Recommended)
+	if ref := x.plan.Settings.ReferenceLength; ref != "" {
+		if f, err := x.form(ref); err == nil {
+			r.ModelLength = f.at(ln)
+		}
+	}
+	lo, hi := math.Log(r.Window[0].Lo), math.Log(r.Window[len(r.Window)-1].Hi)
+	x.fillRequired(r, lo, hi, ln)
+	x.fillFactors(r)
+	x.fillMeasures(r, lo, hi, ln)
+	if note := x.poissonNote(); note != "" {
+		r.Notes = append(r.Notes, note)
+		r.PoissonFlag, r.PoissonNote = true, note
+	}
+	if x.cas.Correction == "ittc1957" {
+		r.Friction = x.friction(ln)
+		if r.Friction == nil {
+			r.Notes = append(r.Notes, "ITTC-1957 correction needs reference_length, reference_speed and the kinematic viscosity of prototype and model")
+		}
+	}
+	return true
+}
+
+// fillCosts gives a combination with a window its cost curve, its
+// cheapest scale in the window, its recommended scale (the largest, or
+// the cheapest when the study asks for it and there is a cost) and the
+// cost there. It returns false when ctx is cancelled.
+func (x *combo) fillCosts(ctx context.Context, r *ComboResult) bool {
+	p := x.plan
 	costAt := x.costFunc()
 	hasCost := len(x.costs()) > 0
 	if hasCost {
@@ -242,14 +273,16 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 			r.Cost = c
 		}
 	}
-	ln := math.Log(r.Recommended)
-	if ref := p.Settings.ReferenceLength; ref != "" {
-		if f, err := x.form(ref); err == nil {
-			r.ModelLength = f.at(ln)
-		}
-	}
+	return true
+}
+
+// fillRequired gives the model properties the strategy requires at the
+// window's ends (log kL lo and hi) and at the recommended scale (ln), with
+// the added density and mass a ballasted model needs and, for a
+// substitute, the library entries that match.
+func (x *combo) fillRequired(r *ComboResult, lo, hi, ln float64) {
+	p := x.plan
 	sol := x.cas.Solution
-	lo, hi := math.Log(r.Window[0].Lo), math.Log(r.Window[len(r.Window)-1].Hi)
 	for _, q := range sol.Required {
 		pv := PropertyValue{Quantity: q, Law: sol.LawString(q)}
 		for _, t := range sol.Strategy.Tuned {
@@ -281,6 +314,12 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 		}
 		r.Required = append(r.Required, pv)
 	}
+}
+
+// fillFactors gives the scale factors of every quantity at the
+// recommended scale and the mismatch of every relaxed law there.
+func (x *combo) fillFactors(r *ComboResult) {
+	sol := x.cas.Solution
 	v := feasibility.Values{}
 	for k, val := range x.values {
 		v[k] = val
@@ -300,7 +339,12 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 			r.Notes = append(r.Notes, fmt.Sprintf("relaxed %s: give %s to evaluate the %s mismatch", m.Law, strings.Join(m.Missing, ", "), m.Group))
 		}
 	}
-	for _, m := range p.Measures {
+}
+
+// fillMeasures gives the study's measures at model scale at the window's
+// ends and at the recommended scale.
+func (x *combo) fillMeasures(r *ComboResult, lo, hi, ln float64) {
+	for _, m := range x.plan.Measures {
 		mv := MeasureValue{Name: m.Name, Unit: m.Unit.Text}
 		var ferr error
 		at := func(l float64) float64 {
@@ -319,17 +363,6 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 		}
 		r.Measures = append(r.Measures, mv)
 	}
-	if note := x.poissonNote(); note != "" {
-		r.Notes = append(r.Notes, note)
-		r.PoissonFlag, r.PoissonNote = true, note
-	}
-	if x.cas.Correction == "ittc1957" {
-		r.Friction = x.friction(ln)
-		if r.Friction == nil {
-			r.Notes = append(r.Notes, "ITTC-1957 correction needs reference_length, reference_speed and the kinematic viscosity of prototype and model")
-		}
-	}
-	return true
 }
 
 // unionOf merges overlapping intervals.
