@@ -7,7 +7,6 @@ import (
 	"sort"
 	"strings"
 
-	"scaleplan/feasibility"
 	"scaleplan/sweep"
 )
 
@@ -135,7 +134,7 @@ func memoText(res *sweep.Result, figures []Figure) string {
 		} else {
 			// A joint window: one table per case, at the joint scale.
 			for _, cs := range recS.Cases {
-				if f, c := CaseFactors(recS, cs, rec); f != nil {
+				if f, c := recS.CaseFactors(cs, rec); f != nil {
 					fmt.Fprintf(b, "\nCase %s (%s), at %s:\n", cs.Case, Candidate(c), sweep.Scale(rec.Recommended))
 					predictionTable(b, cs.Solution, f, keep)
 				}
@@ -219,34 +218,4 @@ func predictionTable(b *strings.Builder, sol interface{ LawString(string) string
 		}
 		fmt.Fprintf(b, "| %s | %s | %s |\n", md(Label(q)), md(law), HumanNumber(factors[q]))
 	}
-}
-
-// CaseFactors returns the scale factors of a case of a strategy at the
-// scale recommended by rec, with the combination they come from: rec's own
-// factors for its case, or, for a joint (all-cases) recommendation, those
-// of the case's combination in the same facility whose window holds that
-// scale. It returns nil when there is none.
-func CaseFactors(sr *sweep.StrategyResult, cs *sweep.PlanCase, rec *sweep.ComboResult) (map[string]float64, *sweep.ComboResult) {
-	if rec == nil || math.IsNaN(rec.Recommended) {
-		return nil, nil
-	}
-	if rec.Factors != nil {
-		if rec.Case == cs.Case || len(sr.Cases) == 1 {
-			return rec.Factors, rec
-		}
-		return nil, nil
-	}
-	for _, c := range sr.Combos {
-		if c.Case != cs.Case || c.Facility != rec.Facility || !c.Window.Contains(rec.Recommended) || c.Params == nil {
-			continue
-		}
-		v := feasibility.Values{"length": rec.Recommended}
-		for k, x := range c.Params {
-			v[k] = x
-		}
-		if f, err := cs.Solution.Factors(v); err == nil {
-			return f, c
-		}
-	}
-	return nil, nil
 }

@@ -102,7 +102,7 @@ func TestJointScaleLaws(t *testing.T) {
 	kL := sr.Best.Recommended
 	want := map[string]float64{"dry sand": math.Pow(kL, 3), "soft clay": kL * kL}
 	for _, cs := range sr.Cases {
-		f, _ := CaseFactors(sr, cs, sr.Best)
+		f, _ := sr.CaseFactors(cs, sr.Best)
 		if f == nil || math.Abs(f["force"]/want[cs.Case]-1) > 1e-9 {
 			t.Errorf("case %s: force multiplier %v, want %v", cs.Case, f["force"], want[cs.Case])
 		}

@@ -427,7 +427,7 @@ func writeLaws(f *excelize.File, res *sweep.Result, bold int) error {
 	for _, sr := range res.Strategies {
 		for _, c := range sr.Cases {
 			sol := c.Solution
-			values, _ := CaseFactors(sr, c, sr.Best)
+			values, _ := sr.CaseFactors(c, sr.Best)
 			for _, l := range sol.Laws {
 				if l.Status.String() == "unset" {
 					continue

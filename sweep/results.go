@@ -160,3 +160,33 @@ func caseLabel(c, l string) string {
 	}
 	return c + ": " + l
 }
+
+// CaseFactors returns the scale factors of a case of a strategy at the
+// scale recommended by rec, with the combination they come from: rec's own
+// factors for its case, or, for a joint (all-cases) recommendation, those
+// of the case's combination in the same facility whose window holds that
+// scale. It returns nil when there is none.
+func (sr *StrategyResult) CaseFactors(cs *PlanCase, rec *ComboResult) (map[string]float64, *ComboResult) {
+	if rec == nil || math.IsNaN(rec.Recommended) {
+		return nil, nil
+	}
+	if rec.Factors != nil {
+		if rec.Case == cs.Case || len(sr.Cases) == 1 {
+			return rec.Factors, rec
+		}
+		return nil, nil
+	}
+	for _, c := range sr.Combos {
+		if c.Case != cs.Case || c.Facility != rec.Facility || !c.Window.Contains(rec.Recommended) || c.Params == nil {
+			continue
+		}
+		v := feasibility.Values{"length": rec.Recommended}
+		for k, x := range c.Params {
+			v[k] = x
+		}
+		if f, err := cs.Solution.Factors(v); err == nil {
+			return f, c
+		}
+	}
+	return nil, nil
+}
