@@ -19,7 +19,7 @@ func IsPartial(name string) bool {
 }
 
 // WriteFileAtomic writes a file through a temporary file in the same
-// folder and renames it into place when complete (sweep.WriteFileAtomic,
+// folder and renames it into place when complete (study.WriteFileAtomic,
 // the one atomic writer): an interrupted run never leaves a half-written
 // output. On any error, and on a panic in write, the temporary file is
 // removed and the target is left as it was.
