@@ -10,6 +10,7 @@ import (
 	"testing"
 
 	"scaleplan/sweep/study"
+	"scaleplan/sweep/study/studytest"
 )
 
 // withSetting returns the tug study with settings changed (value, unit).
@@ -58,7 +59,7 @@ func TestDomainProblems(t *testing.T) {
 			s := tugWith(t, tt.settings)
 			s.Limits = append(s.Limits, tt.limits...)
 			_, err := prepare(t, s)
-			got := problemLines(t, err)
+			got := studytest.ProblemLines(t, err)
 			for _, g := range got {
 				if strings.Contains(g, tt.want) {
 					return
@@ -89,7 +90,7 @@ func TestOneTypoOneError(t *testing.T) {
 	s.Costs = append(s.Costs, study.CostRow{Item: "paint", Coefficient: "10", Per: "m", Measure: "beam", Row: 9})
 	s.Uncertain = append(s.Uncertain, study.UncertainRow{Input: "beam", Distribution: "normal", Spread: "5%", Row: 2})
 	_, err := prepare(t, s)
-	got := problemLines(t, err)
+	got := studytest.ProblemLines(t, err)
 	if len(got) != 1 || !strings.HasPrefix(got[0], `Prototype!B3: unit "mx"`) && !strings.HasPrefix(got[0], `Prototype!B3: value "11 mx"`) {
 		t.Errorf("want one problem at Prototype!B3 (the misspelt unit), got:\n  %s", strings.Join(got, "\n  "))
 	}
@@ -112,7 +113,7 @@ func TestMemoryRefusedUpFront(t *testing.T) {
 	if alloc := after.TotalAlloc - before.TotalAlloc; alloc > 16<<20 {
 		t.Errorf("the refused check allocated %d bytes", alloc)
 	}
-	got := problemLines(t, err)
+	got := studytest.ProblemLines(t, err)
 	// 10^7 points × (160 + 96) bytes = 2.56e9 bytes = 2442 MiB.
 	want := "Study!B6: the sweep would need about 2442 MiB of memory (10000000 grid points × 1 combinations), more than the soft limit of 768 MiB"
 	if len(got) != 1 || !strings.HasPrefix(got[0], want) {
@@ -184,7 +185,7 @@ func TestMemoryOfDraws(t *testing.T) {
 	// With the tug's two uncertain inputs and beam: 10^7 draws × (24 +
 	// 8 × 3) bytes × 2 combinations at once = 960 MB, above 768 MiB
 	// (805 MB).
-	if got := problemLines(t, err); len(got) != 1 || !strings.HasPrefix(got[0], "Study!") || !strings.Contains(got[0], fmt.Sprintf("(10000000 draws × %d inputs)", inputs)) || !strings.Contains(got[0], "reduce samples to at most") {
+	if got := studytest.ProblemLines(t, err); len(got) != 1 || !strings.HasPrefix(got[0], "Study!") || !strings.Contains(got[0], fmt.Sprintf("(10000000 draws × %d inputs)", inputs)) || !strings.Contains(got[0], "reduce samples to at most") {
 		t.Errorf("want the memory refusal of the draws, got:\n  %s", strings.Join(got, "\n  "))
 	}
 	// A thousand draws fit.

@@ -8,6 +8,7 @@ import (
 	"github.com/xuri/excelize/v2"
 
 	"scaleplan/sweep/study"
+	"scaleplan/sweep/study/studytest"
 )
 
 // The tests of this file read inputs as people type them: workbook cells
@@ -59,7 +60,7 @@ func TestTypedWorkbookCells(t *testing.T) {
 		styled(t, f, "Prototype", "measuring_time", 60.0/86400, 21) // 0:01:00
 	})
 	s, err := loadBytes(t, b)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	if got := s.Settings["scale_to"].Value; got != "1:25" {
 		t.Errorf("scale_to read as %q, want 1:25", got)
 	}
@@ -82,7 +83,7 @@ func TestTypedWorkbookCells(t *testing.T) {
 // TestTypedCSVValues: the same forms typed in CSV text, the unit of a
 // header, a decimal comma in a semicolon file and odd white space.
 func TestTypedCSVValues(t *testing.T) {
-	sheets := minimalCSV()
+	sheets := studytest.MinimalCSV()
 	sheets["Study"] = "setting;value;unit;note\nname;mini;;\nscale_from;1:5;;\nscale_to;1:50,5;;\ntolerance;12,5 %;;\n"
 	// 28 ft = 8.5344 m (1 ft = 0.3048 m exactly, NIST SP 811 B.8); the
 	// row that states m keeps it.
@@ -93,9 +94,9 @@ func TestTypedCSVValues(t *testing.T) {
 		"Estuary\u00a0tank,towing_tank,tank_length,120,m,\n" +
 		"Estuary  tank ,towing_tank,tank_depth,3,m,\n" +
 		"Estuary\ttank,towing_tank,tank_width,6,m,\n"
-	dir := writeFolder(t, sheets)
+	dir := studytest.WriteFolder(t, sheets)
 	s, err := study.Load(dir)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	plan, err := prepare(t, s)
 	if err != nil {
 		t.Fatal(err)
@@ -156,15 +157,15 @@ func TestTypedProblems(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			sheets := minimalCSV()
+			sheets := studytest.MinimalCSV()
 			for k, v := range tt.sheets {
 				sheets[k] = v
 			}
-			s, err := study.Load(writeFolder(t, sheets))
+			s, err := study.Load(studytest.WriteFolder(t, sheets))
 			if err == nil {
 				_, err = prepare(t, s)
 			}
-			got := problemLines(t, err)
+			got := studytest.ProblemLines(t, err)
 			for _, g := range got {
 				if strings.HasPrefix(g, tt.want) {
 					return
@@ -179,12 +180,12 @@ func TestTypedProblems(t *testing.T) {
 // in the memo; it is refused, and a purpose on several lines is read as
 // one paragraph.
 func TestStudyNameLineBreak(t *testing.T) {
-	sheets := minimalCSV()
+	sheets := studytest.MinimalCSV()
 	sheets["Study"] = "setting,value,unit,note\nname,\"tug\n# Forged heading\",,\nscale_from,10,,\nscale_to,50,,\n"
-	s, err := study.Load(writeFolder(t, sheets))
-	checkProblems(t, err, nil)
+	s, err := study.Load(studytest.WriteFolder(t, sheets))
+	studytest.CheckProblems(t, err, nil)
 	_, err = prepare(t, s)
-	checkProblems(t, err, []string{"Study!B2: the study name holds a line break: put it on one line (it heads every output)"})
+	studytest.CheckProblems(t, err, []string{"Study!B2: the study name holds a line break: put it on one line (it heads every output)"})
 
 	tug := scenario(t, "tug")
 	set := tug.Settings["purpose"]

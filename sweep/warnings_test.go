@@ -8,40 +8,22 @@ import (
 	"testing"
 
 	"scaleplan/sweep/study"
+	"scaleplan/sweep/study/studytest"
 )
 
-// hasWarning fails the test unless exactly one warning holds every part.
-func hasWarning(t *testing.T, ws study.Warnings, parts ...string) study.Warning {
-	t.Helper()
-	var found []study.Warning
-	for _, w := range ws {
-		ok := true
-		for _, p := range parts {
-			ok = ok && strings.Contains(w.String(), p)
-		}
-		if ok {
-			found = append(found, w)
-		}
-	}
-	if len(found) != 1 {
-		t.Fatalf("want one warning with %q, got %d in %q", parts, len(found), ws.Strings())
-	}
-	return found[0]
-}
-
 func TestWarnStrayCSVFile(t *testing.T) {
-	sheets := minimalCSV()
+	sheets := studytest.MinimalCSV()
 	sheets["Limit"] = "applies_to,limit,expression,source\nall,short,hull_length <= 1 m,\n"
-	dir := writeFolder(t, sheets)
+	dir := studytest.WriteFolder(t, sheets)
 	for _, f := range []string{"notes.txt", ".gitkeep", "~$Study.csv"} {
 		if err := os.WriteFile(filepath.Join(dir, f), []byte("x"), 0o644); err != nil {
 			t.Fatal(err)
 		}
 	}
 	s, err := study.Load(dir)
-	checkProblems(t, err, nil)
-	hasWarning(t, s.Warnings, "Limit.csv is not a sheet of a study; did you mean Limits.csv?")
-	hasWarning(t, s.Warnings, "notes.txt is not a sheet of a study and is not read")
+	studytest.CheckProblems(t, err, nil)
+	studytest.HasWarning(t, s.Warnings, "Limit.csv is not a sheet of a study; did you mean Limits.csv?")
+	studytest.HasWarning(t, s.Warnings, "notes.txt is not a sheet of a study and is not read")
 	if len(s.Warnings) != 2 {
 		t.Errorf("hidden and lock files should pass silently: %q", s.Warnings.Strings())
 	}
@@ -54,12 +36,12 @@ func TestWarnStrayCSVFile(t *testing.T) {
 		t.Fatal(err)
 	}
 	s, err = study.Load(anchor)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	plan, err := prepare(t, s)
 	if err != nil {
 		t.Fatal(err)
 	}
-	hasWarning(t, plan.Warnings, "Limit.csv is not a sheet")
+	studytest.HasWarning(t, plan.Warnings, "Limit.csv is not a sheet")
 }
 
 func TestWarnDefaultLimitNotApplied(t *testing.T) {
@@ -76,7 +58,7 @@ func TestWarnDefaultLimitNotApplied(t *testing.T) {
 	// Both facilities state a force resolution, so the limit concerns
 	// both; each is named once.
 	for _, f := range []string{"Clay bin (a soil_bin)", "Beam centrifuge (a centrifuge)"} {
-		hasWarning(t, plan.Warnings, "default limits of "+f, `"force above resolution"`, "needs the prototype item design_force (did you mean design_forces?)")
+		studytest.HasWarning(t, plan.Warnings, "default limits of "+f, `"force above resolution"`, "needs the prototype item design_force (did you mean design_forces?)")
 	}
 	// The sweep skips the limit indeed: the small-model edge moves to the
 	// end of the sweep.
@@ -107,7 +89,7 @@ func TestWarnUnusedCapability(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	w := hasWarning(t, plan.Warnings, "bin_length of Clay bin is stated but no limit, cost or measure uses it")
+	w := studytest.HasWarning(t, plan.Warnings, "bin_length of Clay bin is stated but no limit, cost or measure uses it")
 	if w.Cell.String() != "Facilities!C16" {
 		t.Errorf("place %s", w.Cell)
 	}
@@ -142,7 +124,7 @@ func TestFixGivenTwice(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	w := hasWarning(t, plan.Warnings, "Strategies!I2: velocity=2 is given twice; it is taken once")
+	w := studytest.HasWarning(t, plan.Warnings, "Strategies!I2: velocity=2 is given twice; it is taken once")
 	if w.Strategy != "spring-mounted section" {
 		t.Errorf("the warning belongs to the strategy: %+v", w)
 	}

@@ -11,6 +11,8 @@ import (
 	"unicode/utf8"
 
 	"github.com/xuri/excelize/v2"
+
+	"scaleplan/sweep/study/studytest"
 )
 
 // checkRead checks what any read must give: a study, problems that name a
@@ -20,7 +22,7 @@ func checkRead(t *testing.T, s *Study, err error, file string) {
 	if s == nil {
 		t.Fatalf("no study: %v", err)
 	}
-	for _, p := range problemLines(t, err) {
+	for _, p := range studytest.ProblemLines(t, err) {
 		ok := strings.HasPrefix(p, file+": ")
 		for _, sheet := range SheetNames {
 			ok = ok || strings.HasPrefix(p, sheet+": ") || strings.HasPrefix(p, sheet+"!")
@@ -71,7 +73,7 @@ func csvFS(t *testing.T, s *Study) fstest.MapFS {
 func roundTrip(t *testing.T, s *Study, xlsx bool) {
 	t.Helper()
 	again, err := LoadFS(csvFS(t, s), ".")
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	want := *s
 	want.Name = again.Name // a study without a name takes its folder's
 	sameStudy(t, again, &want)
@@ -89,7 +91,7 @@ func roundTrip(t *testing.T, s *Study, xlsx bool) {
 		t.Fatal(err)
 	}
 	again, err = readXLSX(buf.Bytes(), "s.xlsx", "s.xlsx", "s")
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	want.Name = again.Name
 	sameStudy(t, again, &want)
 }
@@ -104,7 +106,7 @@ func FuzzReadCSV(f *testing.F) {
 	f.Fuzz(func(t *testing.T, which uint8, data []byte) {
 		sheet := SheetNames[int(which)%len(SheetNames)]
 		fsys := fstest.MapFS{}
-		for name, content := range minimalCSV() {
+		for name, content := range studytest.MinimalCSV() {
 			fsys[name+".csv"] = &fstest.MapFile{Data: []byte(content)}
 		}
 		fsys[sheet+".csv"] = &fstest.MapFile{Data: data}
@@ -197,7 +199,7 @@ func FuzzReadXLSX(f *testing.F) {
 // TestSmallWorkbook: the fuzz seed workbook is a valid study.
 func TestSmallWorkbook(t *testing.T) {
 	s, err := readXLSX(smallWorkbook(nil), "s.xlsx", "s.xlsx", "s")
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	if s.Name != "small" || len(s.Prototype) != 1 || s.Prototype[0] != (Item{Name: "hull_length", Value: "120", Unit: "m", ScalesAs: "length", Row: 2}) ||
 		len(s.Strategies) != 1 || s.Strategies[0].Retain != "inertia, gravity" {
 		t.Errorf("study %#v", s)

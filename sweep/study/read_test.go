@@ -15,6 +15,8 @@ import (
 	"testing/fstest"
 
 	"github.com/xuri/excelize/v2"
+
+	"scaleplan/sweep/study/studytest"
 )
 
 // sampleStudy has rows in every sheet, blank rows between some of them,
@@ -72,70 +74,6 @@ func sampleStudy() *Study {
 	}
 }
 
-// minimalCSV is a valid folder study, sheet by sheet.
-func minimalCSV() map[string]string {
-	return map[string]string{
-		"Study":      "setting,value,unit,note\nname,mini,,\nscale_from,10,,\nscale_to,50,,\n",
-		"Prototype":  "item,value,unit,scales_as,note\nhull_length,120,m,length,\n",
-		"Strategies": "strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note\nfroude,,dominant,\"inertia, gravity\",viscosity,,,,,,,,,\n",
-	}
-}
-
-// writeFolder writes the sheets (name → content) as NAME.csv in a new
-// folder and returns it.
-func writeFolder(t *testing.T, sheets map[string]string) string {
-	t.Helper()
-	dir := filepath.Join(t.TempDir(), "study")
-	if err := os.Mkdir(dir, 0o755); err != nil {
-		t.Fatal(err)
-	}
-	for name, content := range sheets {
-		if err := os.WriteFile(filepath.Join(dir, name+".csv"), []byte(content), 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	return dir
-}
-
-// problemLines is the problems of err, one line each; it fails the test
-// when err is not nil and not Problems.
-func problemLines(t *testing.T, err error) []string {
-	t.Helper()
-	if err == nil {
-		return nil
-	}
-	var ps Problems
-	if !errors.As(err, &ps) {
-		t.Fatalf("error is not Problems: %v", err)
-	}
-	lines := make([]string, len(ps))
-	for i, p := range ps {
-		lines[i] = p.Error()
-	}
-	return lines
-}
-
-// checkProblems checks that every wanted problem was reported, and that
-// there are no problems when none are wanted.
-func checkProblems(t *testing.T, err error, want []string) {
-	t.Helper()
-	got := problemLines(t, err)
-	if len(want) == 0 && len(got) > 0 {
-		t.Fatalf("unexpected problems:\n%s", strings.Join(got, "\n"))
-	}
-	for _, w := range want {
-		found := false
-		for _, g := range got {
-			if g == w {
-				found = true
-			}
-		}
-		if !found {
-			t.Errorf("missing problem\n  %s\ngot:\n  %s", w, strings.Join(got, "\n  "))
-		}
-	}
-}
-
 func TestLoadCSVProblems(t *testing.T) {
 	huge := strings.Repeat("x", MaxCellChars+1)
 	var many strings.Builder
@@ -186,7 +124,7 @@ func TestLoadCSVProblems(t *testing.T) {
 	}
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
-			sheets := minimalCSV()
+			sheets := studytest.MinimalCSV()
 			for k, v := range tt.sheets {
 				if v == "" {
 					delete(sheets, k)
@@ -194,7 +132,7 @@ func TestLoadCSVProblems(t *testing.T) {
 				}
 				sheets[k] = v
 			}
-			dir := writeFolder(t, sheets)
+			dir := studytest.WriteFolder(t, sheets)
 			s, err := Load(dir)
 			if s == nil {
 				t.Fatalf("no study returned: %v", err)
@@ -203,7 +141,7 @@ func TestLoadCSVProblems(t *testing.T) {
 			for i, w := range tt.want {
 				want[i] = strings.ReplaceAll(w, "DIR", dir)
 			}
-			checkProblems(t, err, want)
+			studytest.CheckProblems(t, err, want)
 		})
 	}
 }
@@ -212,7 +150,7 @@ func TestLoadCSVProblems(t *testing.T) {
 // shows them (blank lines are rows, a multi-line cell is one row), trimmed
 // values, the semicolon separator, and the study's name.
 func TestLoadCSVValues(t *testing.T) {
-	sheets := minimalCSV()
+	sheets := studytest.MinimalCSV()
 	sheets["Prototype"] = "\xef\xbb\xbfitem,value [m],unit,scales_as,note,mine\r\n" +
 		"\r\n" + // row 2 is blank
 		"  hull_length , 120 ,m,length,,extra\r\n" + // row 3
@@ -220,9 +158,9 @@ func TestLoadCSVValues(t *testing.T) {
 		",,,,,only a note of mine\r\n" + // row 5: blank in the study's columns
 		"beam,\"2,5\",m,length\r\n" // row 6: short row
 	sheets["Media"] = "name;library_entry;conditions;note\nwater;fresh_water;15C, 1 bar;\n\nsea;seawater;\"a;b\";\n"
-	dir := writeFolder(t, sheets)
+	dir := studytest.WriteFolder(t, sheets)
 	s, err := Load(dir)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	wantItems := []Item{
 		{Name: "hull_length", Value: "120", Unit: "m", ScalesAs: "length", Row: 3},
 		{Name: "two\nlines", Value: "5", Unit: "m", ScalesAs: "length", Row: 4},
@@ -247,20 +185,20 @@ func TestLoadCSVValues(t *testing.T) {
 
 	// Without a name setting, the folder's name.
 	sheets["Study"] = "setting,value,unit,note\nscale_from,10,,\n"
-	s, err = Load(writeFolder(t, sheets))
-	checkProblems(t, err, nil)
+	s, err = Load(studytest.WriteFolder(t, sheets))
+	studytest.CheckProblems(t, err, nil)
 	if s.Name != "study" {
 		t.Errorf("name %q, want the folder's name", s.Name)
 	}
 }
 
 func TestLoadCSVFileNameCase(t *testing.T) {
-	dir := writeFolder(t, minimalCSV())
+	dir := studytest.WriteFolder(t, studytest.MinimalCSV())
 	if err := os.Rename(filepath.Join(dir, "Prototype.csv"), filepath.Join(dir, "prototype.csv")); err != nil {
 		t.Fatal(err)
 	}
 	s, err := Load(dir)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	if len(s.Prototype) != 1 {
 		t.Errorf("prototype.csv not read: %#v", s.Prototype)
 	}
@@ -268,17 +206,17 @@ func TestLoadCSVFileNameCase(t *testing.T) {
 
 func TestLoadFS(t *testing.T) {
 	fsys := fstest.MapFS{}
-	for name, content := range minimalCSV() {
+	for name, content := range studytest.MinimalCSV() {
 		fsys["demo/froude/"+name+".csv"] = &fstest.MapFile{Data: []byte(content)}
 	}
 	s, err := LoadFS(fsys, "demo/froude")
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	if s.Name != "mini" || s.Source != "demo/froude" || len(s.Strategies) != 1 || s.Strategies[0].Retain != "inertia, gravity" {
 		t.Errorf("study %#v", s)
 	}
 	delete(fsys, "demo/froude/Study.csv")
 	s, err = LoadFS(fsys, "demo/froude")
-	checkProblems(t, err, []string{"Study: sheet missing: the folder demo/froude has no Study.csv"})
+	studytest.CheckProblems(t, err, []string{"Study: sheet missing: the folder demo/froude has no Study.csv"})
 	if s.Name != "froude" {
 		t.Errorf("name %q, want froude", s.Name)
 	}
@@ -544,7 +482,7 @@ func TestLoadXLSXProblems(t *testing.T) {
 			if s == nil {
 				t.Fatalf("no study returned: %v", err)
 			}
-			checkProblems(t, err, tt.want)
+			studytest.CheckProblems(t, err, tt.want)
 		})
 	}
 }
@@ -569,7 +507,7 @@ func TestLoadXLSXCachedFormula(t *testing.T) {
 		return []byte(s)
 	})
 	s, err := loadBytes(t, b)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	n := len(s.Prototype)
 	got := s.Prototype[n-2:]
 	want := []Item{{Name: "rate", Value: "120", Row: 20}, {Name: "label", Value: "LABEL", Row: 21}}
@@ -590,7 +528,7 @@ func TestLoadXLSXRawNumbers(t *testing.T) {
 		f.SetCellStyle("Costs", "B3", "B3", short)
 	})
 	s, err := loadBytes(t, b)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	if s.Costs[0].Coefficient != "1234.5678" || s.Costs[1].Coefficient != "0.00089" {
 		t.Errorf("coefficients %q %q", s.Costs[0].Coefficient, s.Costs[1].Coefficient)
 	}
@@ -653,7 +591,7 @@ func TestLoadXLSXSheetXML(t *testing.T) {
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
 			s, err := readXLSX(smallWorkbook(sheet(tt.rows)), "s.xlsx", "s.xlsx", "s")
-			checkProblems(t, err, tt.want)
+			studytest.CheckProblems(t, err, tt.want)
 			if tt.want == nil || tt.items != nil {
 				if !reflect.DeepEqual(s.Prototype, tt.items) {
 					t.Errorf("Prototype:\n got %#v\nwant %#v", s.Prototype, tt.items)

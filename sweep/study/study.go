@@ -45,12 +45,15 @@ func (p Problem) Error() string { return p.Cell.String() + ": " + p.Msg }
 // is not empty.
 type Problems []Problem
 
-func (ps Problems) Error() string {
+func (ps Problems) Error() string { return strings.Join(ps.Lines(), "\n") }
+
+// Lines returns every problem on a line of its own, with its place.
+func (ps Problems) Lines() []string {
 	lines := make([]string, len(ps))
 	for i, p := range ps {
 		lines[i] = p.Error()
 	}
-	return strings.Join(lines, "\n")
+	return lines
 }
 
 // Add records a problem.

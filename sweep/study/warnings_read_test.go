@@ -7,26 +7,9 @@ import (
 	"testing"
 
 	"github.com/xuri/excelize/v2"
-)
 
-// hasWarning fails the test unless exactly one warning holds every part.
-func hasWarning(t *testing.T, ws Warnings, parts ...string) Warning {
-	t.Helper()
-	var found []Warning
-	for _, w := range ws {
-		ok := true
-		for _, p := range parts {
-			ok = ok && strings.Contains(w.String(), p)
-		}
-		if ok {
-			found = append(found, w)
-		}
-	}
-	if len(found) != 1 {
-		t.Fatalf("want one warning with %q, got %d in %q", parts, len(found), ws.Strings())
-	}
-	return found[0]
-}
+	"scaleplan/sweep/study/studytest"
+)
 
 func TestWarnStrayWorksheet(t *testing.T) {
 	b := workbook(t, sampleStudy(), func(f *excelize.File) {
@@ -35,15 +18,15 @@ func TestWarnStrayWorksheet(t *testing.T) {
 		}
 	})
 	s, err := loadBytes(t, b)
-	checkProblems(t, err, nil)
-	hasWarning(t, s.Warnings, `the worksheet "Limit" is not a sheet of a study and is not read; did you mean Limits?`)
+	studytest.CheckProblems(t, err, nil)
+	studytest.HasWarning(t, s.Warnings, `the worksheet "Limit" is not a sheet of a study and is not read; did you mean Limits?`)
 	if len(s.Warnings) != 1 {
 		t.Errorf("the template's own sheets must not warn: %q", s.Warnings.Strings())
 	}
 }
 
 func TestRefuseCaseTwinSheets(t *testing.T) {
-	dir := writeFolder(t, minimalCSV())
+	dir := studytest.WriteFolder(t, studytest.MinimalCSV())
 	if err := os.WriteFile(filepath.Join(dir, "limits.csv"), []byte("applies_to,limit,expression,source\n"), 0o644); err != nil {
 		t.Fatal(err)
 	}
@@ -54,7 +37,7 @@ func TestRefuseCaseTwinSheets(t *testing.T) {
 		t.Skip("the file system ignores case")
 	}
 	_, err := Load(dir)
-	checkProblems(t, err, []string{"Limits: the folder holds Limits.csv and limits.csv: names that differ only in case are one sheet, so which one counts is ambiguous; keep one of them"})
+	studytest.CheckProblems(t, err, []string{"Limits: the folder holds Limits.csv and limits.csv: names that differ only in case are one sheet, so which one counts is ambiguous; keep one of them"})
 }
 
 func TestRefuseCaseTwinWorksheets(t *testing.T) {

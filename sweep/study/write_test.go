@@ -10,6 +10,8 @@ import (
 	"testing"
 
 	"github.com/xuri/excelize/v2"
+
+	"scaleplan/sweep/study/studytest"
 )
 
 func testLists() Lists {
@@ -96,7 +98,7 @@ func TestRoundTrip(t *testing.T) {
 					t.Fatal(err)
 				}
 				got, err := Load(p)
-				checkProblems(t, err, nil)
+				studytest.CheckProblems(t, err, nil)
 				sameStudy(t, got, st.want)
 				if got.Source != p {
 					t.Errorf("source %q, want %q", got.Source, p)
@@ -118,9 +120,9 @@ func TestCSVAndXLSXLoadIdentically(t *testing.T) {
 		t.Fatal(err)
 	}
 	a, err := Load(filepath.Join(dir, "csv"))
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	b, err := Load(filepath.Join(dir, "s.xlsx"))
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	sameStudy(t, a, b)
 }
 
@@ -158,7 +160,7 @@ func TestFormulaLookingText(t *testing.T) {
 		}
 	}
 	s, err := Load(p)
-	checkProblems(t, err, nil)
+	studytest.CheckProblems(t, err, nil)
 	sameStudy(t, s, sampleStudy())
 }
 
