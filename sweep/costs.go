@@ -10,6 +10,8 @@ import (
 	"scaleplan/sweep/study"
 )
 
+// prepareCosts checks the Costs sheet: each item's coefficient, the unit
+// it is per and its measure, and the facility it applies to.
 func (p *Plan) prepareCosts(ps *study.Problems) {
 	for _, r := range p.Study.Costs {
 		c := &PlanCost{Item: strings.TrimSpace(r.Item), Facility: strings.TrimSpace(r.Facility), Row: r.Row}

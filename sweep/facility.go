@@ -128,6 +128,8 @@ func (c *FacilityCatalog) DefaultLimits(t string) []DefaultLimit {
 	return append(append([]DefaultLimit(nil), c.limits[t]...), c.limits[AnyType]...)
 }
 
+// prepareFacilities checks the Facilities sheet: each facility's type
+// and capabilities, gathered by facility name.
 func (p *Plan) prepareFacilities(ps *study.Problems) {
 	byName := map[string]*Facility{}
 	for _, r := range p.Study.Facilities {

@@ -52,13 +52,7 @@ func newCompiled(info LimitInfo, l *feasibility.Limit, forms map[string]linForm)
 // limits, and the ranges of tuned properties.
 func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 	p := x.plan
-	var skipped []string
 	notes = append(notes, x.cas.Solution.Warnings...)
-	defer func() {
-		if len(skipped) > 0 {
-			notes = append(notes, "default limits not applied, their names are not in the study: "+strings.Join(skipped, ", "))
-		}
-	}()
 	applies := func(a string) bool {
 		return a == "all" || (x.fac != nil && (a == x.fac.Type || a == x.fac.Name))
 	}
@@ -68,48 +62,78 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 			overridden[l.Name] = true
 		}
 	}
-	resolve := func(l *feasibility.Limit) (map[string]linForm, error) {
-		forms := map[string]linForm{}
-		for _, n := range l.Names() {
-			f, err := x.form(n)
-			if err != nil {
-				return nil, err
-			}
-			forms[n] = f
+	out, skipped := x.defaultLimits(overridden)
+	addSkipped := func(notes []string) []string {
+		if len(skipped) > 0 {
+			notes = append(notes, "default limits not applied, their names are not in the study: "+strings.Join(skipped, ", "))
 		}
-		return forms, nil
-	}
-	add := func(info LimitInfo, l *feasibility.Limit, forms map[string]linForm) {
-		out = append(out, newCompiled(info, l, forms))
-	}
-	if x.fac != nil {
-		for _, d := range p.Catalog.DefaultLimits(x.fac.Type) {
-			if overridden[d.Name] {
-				continue
-			}
-			forms, err := resolve(d.Limit)
-			if err != nil {
-				var un unknownNameError
-				if errors.As(err, &un) {
-					skipped = append(skipped, fmt.Sprintf("%s (needs %s)", d.Name, un.name))
-				} else {
-					skipped = append(skipped, fmt.Sprintf("%s (%v)", d.Name, err))
-				}
-				continue
-			}
-			add(LimitInfo{Name: d.Name, Expression: d.Expression, Source: d.Source}, d.Limit, forms)
-		}
+		return notes
 	}
 	for _, l := range p.Limits {
 		if !applies(l.AppliesTo) {
 			continue
 		}
-		forms, err := resolve(l.Limit)
+		forms, err := x.forms(l.Limit)
 		if err != nil {
-			return nil, nil, fmt.Errorf("Limits!C%d: %v", l.Row, err)
+			return nil, addSkipped(nil), fmt.Errorf("%s: %v", study.At("Limits", l.Row, "expression"), err)
 		}
-		add(LimitInfo{Name: l.Name, Expression: l.Limit.Text, Source: l.Source}, l.Limit, forms)
+		out = append(out, newCompiled(LimitInfo{Name: l.Name, Expression: l.Limit.Text, Source: l.Source}, l.Limit, forms))
 	}
+	tuned, tunedNotes, err := x.tunedLimits()
+	notes = append(notes, tunedNotes...)
+	if err != nil {
+		return nil, addSkipped(nil), err
+	}
+	out = append(out, tuned...)
+	bands, bandNotes, err := x.bandLimits()
+	if err != nil {
+		return nil, addSkipped(nil), err
+	}
+	return append(out, bands...), addSkipped(append(notes, bandNotes...)), nil
+}
+
+// forms resolves every name a limit uses for the combination.
+func (x *combo) forms(l *feasibility.Limit) (map[string]linForm, error) {
+	forms := map[string]linForm{}
+	for _, n := range l.Names() {
+		f, err := x.form(n)
+		if err != nil {
+			return nil, err
+		}
+		forms[n] = f
+	}
+	return forms, nil
+}
+
+// defaultLimits are the default limits of the combination's facility type
+// that the study does not override, and the names of those skipped because
+// they name something the study does not have.
+func (x *combo) defaultLimits(overridden map[string]bool) (out []compiled, skipped []string) {
+	if x.fac == nil {
+		return nil, nil
+	}
+	for _, d := range x.plan.Catalog.DefaultLimits(x.fac.Type) {
+		if overridden[d.Name] {
+			continue
+		}
+		forms, err := x.forms(d.Limit)
+		if err != nil {
+			var un unknownNameError
+			if errors.As(err, &un) {
+				skipped = append(skipped, fmt.Sprintf("%s (needs %s)", d.Name, un.name))
+			} else {
+				skipped = append(skipped, fmt.Sprintf("%s (%v)", d.Name, err))
+			}
+			continue
+		}
+		out = append(out, newCompiled(LimitInfo{Name: d.Name, Expression: d.Expression, Source: d.Source}, d.Limit, forms))
+	}
+	return out, skipped
+}
+
+// tunedLimits are the limits of the range a candidate states for each
+// property the strategy tunes (a note for a tuned property without one).
+func (x *combo) tunedLimits() (out []compiled, notes []string, err error) {
 	for _, q := range x.cas.Solution.Strategy.Tuned {
 		pr, ok := x.props[q]
 		if !ok || !(pr.Max > pr.Min) {
@@ -124,20 +148,16 @@ func (x *combo) limitsFor() (out []compiled, notes []string, err error) {
 			text := fmt.Sprintf("%s %s %s", q, side.op, formatSI(side.v, unit))
 			l, err := feasibility.ParseLimit(text)
 			if err != nil {
-				return nil, nil, err
+				return nil, notes, err
 			}
-			forms, err := resolve(l)
+			forms, err := x.forms(l)
 			if err != nil {
-				return nil, nil, err
+				return nil, notes, err
 			}
-			add(LimitInfo{Name: "tuned " + q + " " + side.what, Expression: text, Source: "range of " + describePair(x.medium, x.material)}, l, forms)
+			out = append(out, newCompiled(LimitInfo{Name: "tuned " + q + " " + side.what, Expression: text, Source: "range of " + describePair(x.medium, x.material)}, l, forms))
 		}
 	}
-	bands, bandNotes, err := x.bandLimits()
-	if err != nil {
-		return nil, nil, err
-	}
-	return append(out, bands...), append(notes, bandNotes...), nil
+	return out, notes, nil
 }
 
 func quantityUnit(q string) string {

@@ -8,6 +8,8 @@ import (
 	"scaleplan/sweep/study"
 )
 
+// prepareMeasures checks the Measures sheet: each measure's expression
+// and the unit it is reported in.
 func (p *Plan) prepareMeasures(ps *study.Problems) {
 	for _, r := range p.Study.Measures {
 		m := &PlanMeasure{Name: strings.TrimSpace(r.Measure), Row: r.Row, Unit: feasibility.Unit{Factor: 1}}
