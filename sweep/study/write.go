@@ -302,11 +302,25 @@ func contains(list []string, v string) bool {
 	return false
 }
 
+// writeLists writes the Lists sheet (the names the drop-downs offer, one
+// column per list) and gives the cells that take one of those names a
+// drop-down, the list cells of the Strategies sheet a hint.
 func writeLists(f *excelize.File, s *Study, lists Lists, bold int) error {
+	cols := listColumns(s, lists)
+	if err := writeListColumns(f, cols, bold); err != nil {
+		return err
+	}
+	if err := listDropDowns(f, cols); err != nil {
+		return err
+	}
+	return listHints(f, cols)
+}
+
+// writeListColumns writes the columns of the Lists sheet.
+func writeListColumns(f *excelize.File, cols []listColumn, bold int) error {
 	if _, err := f.NewSheet(listsSheet); err != nil {
 		return err
 	}
-	cols := listColumns(s, lists)
 	for i, c := range cols {
 		if err := f.SetCellStr(listsSheet, ColumnLetters(i+1)+"1", c.header); err != nil {
 			return err
@@ -332,6 +346,11 @@ func writeLists(f *excelize.File, s *Study, lists Lists, bold int) error {
 	}); err != nil {
 		return err
 	}
+	return nil
+}
+
+// listDropDowns gives the cells that take one name of a list a drop-down.
+func listDropDowns(f *excelize.File, cols []listColumn) error {
 	// Drop-down lists refer to the Lists sheet (an inline list is limited
 	// to 255 characters, too few for the quantities).
 	ref := func(i int) string {
@@ -368,6 +387,12 @@ func writeLists(f *excelize.File, s *Study, lists Lists, bold int) error {
 			return err
 		}
 	}
+	return nil
+}
+
+// listHints gives the list cells of the Strategies sheet an input message
+// naming the allowed names.
+func listHints(f *excelize.File, cols []listColumn) error {
 	// List cells take several names, which a drop-down cannot check: an
 	// input message names the allowed ones.
 	type hint struct {

@@ -61,34 +61,12 @@ func writeChoices(f *excelize.File, s *Study, lists Lists) error {
 	for _, t := range types {
 		cols = append(cols, choiceList{"caps_" + t, lists.Capabilities[t]})
 	}
-	ref := map[string]string{}
-	for i, c := range cols {
-		col := ColumnLetters(i + 1)
-		if err := f.SetCellStr(choicesSheet, col+"1", c.name); err != nil {
-			return err
-		}
-		for j, v := range c.values {
-			if err := f.SetCellStr(choicesSheet, col+strconv.Itoa(j+2), v); err != nil {
-				return err
-			}
-		}
-		last := len(c.values) + 1
-		if last < 2 {
-			last = 2
-		}
-		ref[c.name] = fmt.Sprintf("%s!$%s$2:$%s$%d", choicesSheet, col, col, last)
-		if i >= 7 {
-			if err := f.SetDefinedName(&excelize.DefinedName{Name: c.name, RefersTo: ref[c.name]}); err != nil {
-				return err
-			}
-		}
+	ref, err := writeChoiceColumns(f, cols)
+	if err != nil {
+		return err
 	}
 	if err := f.SetSheetVisible(choicesSheet, false); err != nil {
 		return err
-	}
-	type drop struct {
-		sheet, sqref, list, title, msg string
-		strict                         bool
 	}
 	drops := []drop{
 		{"Study", columnRange("Study", "setting"), ref["setting"], "setting", "A setting name (the list shows every one).", true},
@@ -113,6 +91,61 @@ func writeChoices(f *excelize.File, s *Study, lists Lists) error {
 			drops = append(drops, drop{"Study", valueCol + strconv.Itoa(i+1), ref[r[0]], r[0], "The values " + r[0] + " takes.", true})
 		}
 	}
+	return addDropDowns(f, drops)
+}
+
+// xmlText escapes a formula for the data-validation element, which the
+// spreadsheet library writes as it is given.
+func xmlText(s string) string {
+	return strings.NewReplacer("&", "&amp;", `"`, "&quot;", "<", "&lt;", ">", "&gt;").Replace(s)
+}
+
+// listOf is the list of values a column of a sheet takes (Sheets).
+func listOf(sheet, col string) []string {
+	sh, _ := SheetOf(sheet)
+	c, _ := sh.column(col)
+	return c.List
+}
+
+// drop is a drop-down list on a range of a sheet: the list it offers, its
+// prompt, and whether a value not in the list is refused (strict) or only
+// warned of.
+type drop struct {
+	sheet, sqref, list, title, msg string
+	strict                         bool
+}
+
+// writeChoiceColumns writes the lists of the Choices sheet, one column
+// each, and returns the reference of each list by name; the capability
+// lists (from the eighth column on) get a defined name, for INDIRECT.
+func writeChoiceColumns(f *excelize.File, cols []choiceList) (map[string]string, error) {
+	ref := map[string]string{}
+	for i, c := range cols {
+		col := ColumnLetters(i + 1)
+		if err := f.SetCellStr(choicesSheet, col+"1", c.name); err != nil {
+			return nil, err
+		}
+		for j, v := range c.values {
+			if err := f.SetCellStr(choicesSheet, col+strconv.Itoa(j+2), v); err != nil {
+				return nil, err
+			}
+		}
+		last := len(c.values) + 1
+		if last < 2 {
+			last = 2
+		}
+		ref[c.name] = fmt.Sprintf("%s!$%s$2:$%s$%d", choicesSheet, col, col, last)
+		if i >= 7 {
+			if err := f.SetDefinedName(&excelize.DefinedName{Name: c.name, RefersTo: ref[c.name]}); err != nil {
+				return nil, err
+			}
+		}
+	}
+	return ref, nil
+}
+
+// addDropDowns gives each range its drop-down list.
+func addDropDowns(f *excelize.File, drops []drop) error {
 	for _, d := range drops {
 		dv := excelize.NewDataValidation(true)
 		dv.Sqref = d.sqref
@@ -129,17 +162,4 @@ func writeChoices(f *excelize.File, s *Study, lists Lists) error {
 		}
 	}
 	return nil
-}
-
-// xmlText escapes a formula for the data-validation element, which the
-// spreadsheet library writes as it is given.
-func xmlText(s string) string {
-	return strings.NewReplacer("&", "&amp;", `"`, "&quot;", "<", "&lt;", ">", "&gt;").Replace(s)
-}
-
-// listOf is the list of values a column of a sheet takes (Sheets).
-func listOf(sheet, col string) []string {
-	sh, _ := SheetOf(sheet)
-	c, _ := sh.column(col)
-	return c.List
 }
