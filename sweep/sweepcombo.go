@@ -40,48 +40,12 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	out := &sweepOut{combo: x, limits: limits, notes: notes}
 	u0, u1 := us[0], us[len(us)-1]
 	win := limitWindow(limits, us, nil)
-	// The largest model any facility could take: the window of the limits
-	// that name no capability of this facility.
 	if x.fac != nil && !x.windowOnly {
-		free := limitWindow(limits, us, func(l compiled) bool {
-			for _, n := range l.lim.Names() {
-				if _, ok := x.fac.Caps[n]; ok {
-					return false
-				}
-			}
-			return true
-		})
-		out.anyFacility = math.NaN()
-		if len(free) > 0 {
-			out.anyFacility = math.Pow(10, free[0].lo)
-		}
+		out.anyFacility = x.anyFacility(limits, us)
 	}
-	// Similarity conditions of the strategy at these factors.
-	sol := x.cas.Solution
-	checks, err := sol.Check(x.values)
+	win, condU, condFails, err := x.conditions(out, win, u0, u1)
 	if err != nil {
 		return nil, err
-	}
-	condU := math.NaN()
-	condFails := ""
-	for _, cc := range checks {
-		out.conditions = append(out.conditions, cc.Protects+": "+cc.Equation(sol.Params))
-		switch {
-		case cc.PinsLength:
-			u := math.Log10(cc.Length)
-			if !math.IsNaN(condU) && math.Abs(condU-u) > 1e-9 {
-				condFails = "two similarity conditions ask for different scales"
-			}
-			condU = u
-			label := "similarity: " + cc.Protects
-			win = intersect(win, []uInterval{{u, u, label, label}})
-			if u < u0 || u > u1 {
-				condFails = fmt.Sprintf("%s holds only at %s, outside the sweep", cc.Protects, Scale(cc.Length))
-			}
-		case cc.Known && !cc.Holds:
-			condFails = fmt.Sprintf("%s cannot be met with %s (off by a factor %.3g)", cc.Protects, describePair(x.medium, x.material), cc.Off)
-			win = nil
-		}
 	}
 	if _, blocked, _ := x.checks(); blocked != "" && condFails == "" {
 		condFails, win = blocked, nil
@@ -126,6 +90,59 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 		}
 	}
 	return out, nil
+}
+
+// anyFacility is the largest model any facility could take (its kL): the
+// window of the limits that name no capability of this facility; NaN when
+// there is none.
+func (x *combo) anyFacility(limits []compiled, us []float64) float64 {
+	free := limitWindow(limits, us, func(l compiled) bool {
+		for _, n := range l.lim.Names() {
+			if _, ok := x.fac.Caps[n]; ok {
+				return false
+			}
+		}
+		return true
+	})
+	if len(free) > 0 {
+		return math.Pow(10, free[0].lo)
+	}
+	return math.NaN()
+}
+
+// conditions applies the similarity conditions of the strategy at the
+// combination's factors to the window win (log10 kL from u0 to u1),
+// recording them in out. It returns the window, the log10 kL a condition
+// pins (NaN for none) and why the conditions empty the window ("" when
+// they do not).
+func (x *combo) conditions(out *sweepOut, win []uInterval, u0, u1 float64) ([]uInterval, float64, string, error) {
+	sol := x.cas.Solution
+	checks, err := sol.Check(x.values)
+	if err != nil {
+		return nil, 0, "", err
+	}
+	condU := math.NaN()
+	condFails := ""
+	for _, cc := range checks {
+		out.conditions = append(out.conditions, cc.Protects+": "+cc.Equation(sol.Params))
+		switch {
+		case cc.PinsLength:
+			u := math.Log10(cc.Length)
+			if !math.IsNaN(condU) && math.Abs(condU-u) > 1e-9 {
+				condFails = "two similarity conditions ask for different scales"
+			}
+			condU = u
+			label := "similarity: " + cc.Protects
+			win = intersect(win, []uInterval{{u, u, label, label}})
+			if u < u0 || u > u1 {
+				condFails = fmt.Sprintf("%s holds only at %s, outside the sweep", cc.Protects, Scale(cc.Length))
+			}
+		case cc.Known && !cc.Holds:
+			condFails = fmt.Sprintf("%s cannot be met with %s (off by a factor %.3g)", cc.Protects, describePair(x.medium, x.material), cc.Off)
+			win = nil
+		}
+	}
+	return win, condU, condFails, nil
 }
 
 // marginGrid sets m[i] to the smallest margin of the limits at us[i] and
