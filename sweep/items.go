@@ -7,6 +7,9 @@ import (
 	"scaleplan/sweep/study"
 )
 
+// prepareItems checks the Prototype sheet: each item's name, the quantity
+// it scales as and its value with its unit; then the items the reference
+// length and speed name (or the first that fits).
 func (p *Plan) prepareItems(ps *study.Problems) {
 	for _, it := range p.Study.Prototype {
 		name := strings.TrimSpace(it.Name)
@@ -19,53 +22,12 @@ func (p *Plan) prepareItems(ps *study.Problems) {
 			ps.Add(cell, "item %q appears twice", name)
 			continue
 		}
-		fail := func() { p.failed.add(name) }
-		scales := strings.TrimSpace(it.ScalesAs)
-		var qdim feasibility.Dimension
-		switch scales {
-		case "none", "1", "-":
-			scales = ""
-		case "":
-			ps.Add(study.At("Prototype", it.Row, "scales_as"), "say which quantity %s scales as (e.g. length, velocity) or none for a count", name)
-			fail()
-			continue
-		default:
-			q, err := feasibility.LookupQuantity(scales)
-			if err != nil {
-				ps.Add(study.At("Prototype", it.Row, "scales_as"), "%v", err)
-				fail()
-				continue
-			}
-			qdim = q.Dim
-		}
-		value, unit, err := study.TimeValue(it.Value, it.Unit, qdim)
-		if err != nil {
-			ps.Add(study.At("Prototype", it.Row, "value"), "%v", err)
-			fail()
+		item, ok := protoItem(it, name, ps)
+		if !ok {
+			p.failed.add(name)
 			continue
 		}
-		v, u, err := feasibility.ParseValue(strings.TrimSpace(value + " " + unit))
-		if err != nil {
-			ps.Add(study.At("Prototype", it.Row, "value"), "%v", err)
-			fail()
-			continue
-		}
-		dim := u.Dim
-		if scales != "" {
-			if u.Text == "" {
-				dim = qdim
-			} else if !u.Dim.Equal(qdim) {
-				ps.Add(study.At("Prototype", it.Row, "unit"), "unit %q does not fit %s (needs %s, got %s)", u.Text, scales, qdim, u.Dim)
-				fail()
-				continue
-			}
-		}
-		if !(v > 0) {
-			ps.Add(study.At("Prototype", it.Row, "value"), "%s must be positive, got %v", name, v)
-			fail()
-			continue
-		}
-		p.Items[name] = ProtoItem{name, v, strings.TrimSpace(unit), scales, dim, it.Row}
+		p.Items[name] = item
 		p.ItemOrder = append(p.ItemOrder, name)
 	}
 	if len(p.Items) == 0 {
@@ -91,6 +53,52 @@ func (p *Plan) prepareItems(ps *study.Problems) {
 	}
 	st.ReferenceLength = pick("reference_length", "hull_length", "length")
 	st.ReferenceSpeed = pick("reference_speed", "design_speed", "velocity")
+}
+
+// protoItem reads the quantity a prototype item scales as and its value
+// in SI. It returns false, with the problem at its cell, when the row is
+// wrong.
+func protoItem(it study.Item, name string, ps *study.Problems) (ProtoItem, bool) {
+	scales := strings.TrimSpace(it.ScalesAs)
+	var qdim feasibility.Dimension
+	switch scales {
+	case "none", "1", "-":
+		scales = ""
+	case "":
+		ps.Add(study.At("Prototype", it.Row, "scales_as"), "say which quantity %s scales as (e.g. length, velocity) or none for a count", name)
+		return ProtoItem{}, false
+	default:
+		q, err := feasibility.LookupQuantity(scales)
+		if err != nil {
+			ps.Add(study.At("Prototype", it.Row, "scales_as"), "%v", err)
+			return ProtoItem{}, false
+		}
+		qdim = q.Dim
+	}
+	value, unit, err := study.TimeValue(it.Value, it.Unit, qdim)
+	if err != nil {
+		ps.Add(study.At("Prototype", it.Row, "value"), "%v", err)
+		return ProtoItem{}, false
+	}
+	v, u, err := feasibility.ParseValue(strings.TrimSpace(value + " " + unit))
+	if err != nil {
+		ps.Add(study.At("Prototype", it.Row, "value"), "%v", err)
+		return ProtoItem{}, false
+	}
+	dim := u.Dim
+	if scales != "" {
+		if u.Text == "" {
+			dim = qdim
+		} else if !u.Dim.Equal(qdim) {
+			ps.Add(study.At("Prototype", it.Row, "unit"), "unit %q does not fit %s (needs %s, got %s)", u.Text, scales, qdim, u.Dim)
+			return ProtoItem{}, false
+		}
+	}
+	if !(v > 0) {
+		ps.Add(study.At("Prototype", it.Row, "value"), "%s must be positive, got %v", name, v)
+		return ProtoItem{}, false
+	}
+	return ProtoItem{name, v, strings.TrimSpace(unit), scales, dim, it.Row}, true
 }
 
 func validName(s string) bool {

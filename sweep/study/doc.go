@@ -39,5 +39,5 @@
 //	write_layout.go
 //	scenarios.go, synthetic.go   built-in scenarios (testdata/scenarios) and large invented studies
 //	atomic.go                    the one atomic file writer of scaleplan
-//	warnings_study.go            warnings of reading (stray files and sheets)
+//	warnings.go                  warnings of reading (stray files and sheets)
 package study
