@@ -553,14 +553,10 @@ func writeLimits(f *excelize.File, res *sweep.Result, bold int) error {
 				}
 				seen[key] = true
 				how := "by bisection (0.1 %)"
-				margin := math.NaN()
 				if l.Linear {
 					how = "exactly"
-					if !math.IsNaN(c.Recommended) {
-						margin = l.A + l.B*math.Log10(c.Recommended)
-					}
 				}
-				if err := s.add(sr.Name, c.Facility, l.Name, l.Expression, l.Source, how, sig(margin)); err != nil {
+				if err := s.add(sr.Name, c.Facility, l.Name, l.Expression, l.Source, how, sig(l.MarginAt(c.Recommended))); err != nil {
 					return err
 				}
 			}

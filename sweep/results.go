@@ -109,6 +109,15 @@ type LimitInfo struct {
 	A, B float64
 }
 
+// MarginAt is the margin of a products-of-powers limit at scale kL, in
+// decades (A + B·log10 kL); NaN for another limit or a missing scale.
+func (l LimitInfo) MarginAt(kL float64) float64 {
+	if !l.Linear || math.IsNaN(kL) {
+		return math.NaN()
+	}
+	return l.A + l.B*math.Log10(kL)
+}
+
 // PropertyValue is a property the model must have, in SI.
 type PropertyValue struct {
 	Quantity      string
