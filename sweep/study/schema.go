@@ -3,7 +3,6 @@ package study
 import (
 	"slices"
 	"sort"
-	"strings"
 )
 
 // The layout of a study is defined once, here: one table per sheet giving
@@ -364,7 +363,3 @@ func settingRecords(s *Study) []Record {
 	}
 	return recs
 }
-
-// ColumnsText lists a sheet's column names as the README and the
-// instructions write them: "item, value, unit, scales_as, note".
-func ColumnsText(sheet string) string { return strings.Join(Columns[sheet], ", ") }
