@@ -68,41 +68,10 @@ func readXLSX(b []byte, source, file, base string) (st *Study, err error) {
 			st, err = finish(s, base, ps)
 		}
 	}()
-	if len(b) > maxFileBytes {
-		ps.Add(whole, "the workbook is larger than %d MiB; a study is far smaller", maxFileBytes>>20)
+	zr, msg := openArchive(b)
+	if msg != "" {
+		ps.Add(whole, "%s", msg)
 		return finish(s, base, ps)
-	}
-	zr, zerr := zip.NewReader(bytes.NewReader(b), int64(len(b)))
-	if errors.Is(zerr, zip.ErrInsecurePath) {
-		zerr = nil // names like ../x do not matter: nothing is extracted
-	}
-	if zerr != nil {
-		if bytes.HasPrefix(b, []byte{0xd0, 0xcf, 0x11, 0xe0}) {
-			ps.Add(whole, "not an .xlsx workbook: it is an old .xls workbook or a password-protected one; save it as an unprotected Excel Workbook (.xlsx)")
-		} else {
-			ps.Add(whole, "not an .xlsx workbook, or a damaged or truncated one (%v): save it again from a spreadsheet program as an Excel Workbook (.xlsx)", zerr)
-		}
-		return finish(s, base, ps)
-	}
-	if len(zr.File) > maxParts {
-		ps.Add(whole, "the workbook holds %d parts; a study workbook holds a few dozen: refused", len(zr.File))
-		return finish(s, base, ps)
-	}
-	var unpacked uint64
-	for _, f := range zr.File {
-		unpacked += min(f.UncompressedSize64, 1<<62)
-		if unpacked > maxFileBytes {
-			ps.Add(whole, "the workbook unpacks to more than %d MiB: refused (a study is far smaller; this may be a zip bomb)", maxFileBytes>>20)
-			return finish(s, base, ps)
-		}
-	}
-	// excelize reads on past a damaged entry (a wrong checksum, or more
-	// data than the entry's header says); check every entry first.
-	for _, f := range zr.File {
-		if err := checkEntry(f); err != nil {
-			ps.Add(whole, "the workbook is damaged (%s: %v): save it again from a spreadsheet program as an Excel Workbook (.xlsx)", f.Name, err)
-			return finish(s, base, ps)
-		}
 	}
 	parts, sst, perr := sheetParts(zr)
 	if perr != nil {
@@ -446,4 +415,42 @@ func sheetParts(zr *zip.Reader) (sheets map[string]*zip.File, sst *zip.File, err
 		}
 	}
 	return parts, sst, nil
+}
+
+// openArchive opens a workbook's zip archive after the checks that keep a
+// hostile or damaged file from reaching the spreadsheet library: its size,
+// the number of its parts, what they unpack to, and every entry's
+// checksum. It returns the problem of the file ("" when it may be read).
+func openArchive(b []byte) (*zip.Reader, string) {
+	if len(b) > maxFileBytes {
+		return nil, fmt.Sprintf("the workbook is larger than %d MiB; a study is far smaller", maxFileBytes>>20)
+	}
+	zr, zerr := zip.NewReader(bytes.NewReader(b), int64(len(b)))
+	if errors.Is(zerr, zip.ErrInsecurePath) {
+		zerr = nil // names like ../x do not matter: nothing is extracted
+	}
+	if zerr != nil {
+		if bytes.HasPrefix(b, []byte{0xd0, 0xcf, 0x11, 0xe0}) {
+			return nil, "not an .xlsx workbook: it is an old .xls workbook or a password-protected one; save it as an unprotected Excel Workbook (.xlsx)"
+		}
+		return nil, fmt.Sprintf("not an .xlsx workbook, or a damaged or truncated one (%v): save it again from a spreadsheet program as an Excel Workbook (.xlsx)", zerr)
+	}
+	if len(zr.File) > maxParts {
+		return nil, fmt.Sprintf("the workbook holds %d parts; a study workbook holds a few dozen: refused", len(zr.File))
+	}
+	var unpacked uint64
+	for _, f := range zr.File {
+		unpacked += min(f.UncompressedSize64, 1<<62)
+		if unpacked > maxFileBytes {
+			return nil, fmt.Sprintf("the workbook unpacks to more than %d MiB: refused (a study is far smaller; this may be a zip bomb)", maxFileBytes>>20)
+		}
+	}
+	// excelize reads on past a damaged entry (a wrong checksum, or more
+	// data than the entry's header says); check every entry first.
+	for _, f := range zr.File {
+		if err := checkEntry(f); err != nil {
+			return nil, fmt.Sprintf("the workbook is damaged (%s: %v): save it again from a spreadsheet program as an Excel Workbook (.xlsx)", f.Name, err)
+		}
+	}
+	return zr, ""
 }
