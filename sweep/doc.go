@@ -34,6 +34,9 @@
 //	corrections.go   the ITTC-1957 skin-friction correction
 //	rank.go          the recommendation rule and the ranking
 //	results.go       Result, StrategyResult, ComboResult
+//	facility.go      the facility catalogue (types, capabilities, default
+//	                 limits from data/*.csv) and the Facilities sheet's checks
+//	lists.go         the names a template's drop-downs offer
 //	batch.go         several studies in one run; domain.go bounds and memory
 //	warnings.go      warnings of the plan; assumptions.go what is assumed
 //
