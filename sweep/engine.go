@@ -99,7 +99,10 @@ type ComboResult struct {
 	// AxisMeasures holds, with a second axis, each study measure at model
 	// scale over the grid, one row per axis value (in the measure's unit).
 	AxisMeasures map[string][][]float64
-	Err          string
+	// Unmet is, for an empty window a required property empties, what it
+	// needs and the library recipes that could meet it (recipe_search.go).
+	Unmet *Unmet
+	Err   string
 }
 
 // LimitInfo describes a limit applied to a combination.
@@ -117,7 +120,12 @@ type PropertyValue struct {
 	AtLo, AtHi    float64 // at the window edges (model values)
 	AtRecommended float64
 	Matches       []Match // library entries that meet it within tolerance at the recommended scale
-	Tuned         bool
+	// Recipes are, for a candidate brought to the requirement by its
+	// tunable conditions (recipe.go), the recipe of each scale band, and
+	// Recipe the one at the recommended scale (nil when none is solved).
+	Recipes []RecipeBand
+	Recipe  *RecipeAt
+	Tuned   bool
 	// Own is the candidate's own value of the property (NaN if it has
 	// none); a device (added mass, springs, a backbone beam) supplies the
 	// difference.
@@ -735,7 +743,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
 	if o.window.Empty() && o.us != nil {
 		if s := x.bandFailing(o.limits, o.us, o.condU); s != "" {
-			r.Failing = s
+			r.Failing, r.Unmet = s, x.unmet
 		}
 	}
 	r.Margins, r.Limiting = o.margins, o.limiting
@@ -825,6 +833,7 @@ func (o *sweepOut) fill(r *ComboResult) {
 		}
 		if x.cas.Technique == "substitute" {
 			pv.Matches = x.libraryMatches(q, r.Recommended)
+			x.recipesFor(&pv, r.Window, r.Recommended)
 		}
 		r.Required = append(r.Required, pv)
 	}

@@ -40,6 +40,9 @@ type combo struct {
 	// byCand holds each candidate's own properties, as drawn and at the
 	// axis value (candidateValue reads them).
 	byCand map[*Candidate2]map[string]materials.Property
+	// unmet is set by bandFailing: the requirement no candidate meets and
+	// what the library can do about it (recipe_search.go).
+	unmet *Unmet
 }
 
 // factor returns the multiplier a draw puts on an input (1 when none).

@@ -52,6 +52,8 @@ type Plan struct {
 	// Warnings are the study's warnings: from reading, then from
 	// checking (see warnings.go).
 	Warnings Warnings
+	// recipes memoises what tunable candidates reach (recipe.go).
+	recipes *recipeMemo
 }
 
 // ProtoItem is a prototype item in SI.
@@ -72,6 +74,8 @@ type Candidate2 struct {
 	Row                     int
 	cond                    materials.Conditions
 	entry                   materials.Entry
+	// tune holds the conditions the row gives as ranges (recipe.go).
+	tune map[materials.Condition]materials.Range
 }
 
 // Facility is a named facility with its capabilities in SI.
@@ -132,7 +136,7 @@ type PlanMeasure struct {
 // catalogue and the units, and returns every problem at once.
 func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, error) {
 	var ps Problems
-	p := &Plan{Study: s, Library: lib, Catalog: cat, Items: map[string]ProtoItem{}, Proto: map[string]float64{}, ProtoSrc: map[string]string{}}
+	p := &Plan{Study: s, Library: lib, Catalog: cat, Items: map[string]ProtoItem{}, Proto: map[string]float64{}, ProtoSrc: map[string]string{}, recipes: &recipeMemo{}}
 	p.Settings = parseSettings(s, &ps)
 	p.prepareCustom(&ps)
 	p.prepareItems(&ps)
@@ -304,7 +308,11 @@ func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Probl
 		if entry == "" {
 			entry = name
 		}
-		props, e, cond, err := p.entryProps(entry, r.Conditions)
+		stated, tune, rerr := tunableConditions(r.Conditions)
+		props, e, cond, err := p.entryProps(entry, stated)
+		if err == nil {
+			err = rerr
+		}
 		if err != nil {
 			col := "library_entry"
 			if _, lerr := p.Library.Lookup(entry); lerr == nil {
@@ -313,7 +321,7 @@ func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Probl
 			ps.Add(At(sheet, r.Row, col), "%v", err)
 			continue
 		}
-		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e})
+		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e, tune: tune})
 	}
 	return out
 }
