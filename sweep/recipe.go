@@ -396,7 +396,7 @@ func (t *tuning) findExtremes() (lo, hi float64, loAt, hiAt materials.Conditions
 // over the draw's factor; aim moves the target within the tolerance.
 func (t *tuning) specAt(req linForm, ln, aim, tol float64) materials.RecipeSpec {
 	sp := t.spec
-	r0 := math.Exp(req.at(ln)) / t.factor * aim
+	r0 := req.at(ln) / t.factor * aim
 	exps, own0 := t.exps, t.own0
 	sp.Target = materials.Target{Quantity: t.q, Tolerance: tol, Of: func(v map[string]float64) float64 {
 		r := r0

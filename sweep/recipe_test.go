@@ -1,0 +1,178 @@
+package sweep
+
+import (
+	"fmt"
+	"math"
+	"strings"
+	"testing"
+)
+
+// nuGlycerolByHand is the kinematic viscosity (m²/s) of a water–glycerol
+// mixture of glycerol mass fraction cm at tC °C, written out from the
+// published formulas: viscosity from Cheng 2008 (Ind. Eng. Chem. Res.
+// 47:3285, eqs. for μw, μg, a, b and α), density from Volk & Kähler 2018
+// (Exp. Fluids 59:75: ρw, ρg and the contraction κ).
+func nuGlycerolByHand(tC, cm float64) float64 {
+	muW := 1.790 * math.Exp((-1230-tC)*tC/(36100+360*tC)) // mPa·s
+	muG := 12100 * math.Exp((-1233+tC)*tC/(9900+70*tC))   // mPa·s
+	a := 0.705 - 0.0017*tC
+	b := (4.9 + 0.036*tC) * math.Pow(a, 2.5)
+	alpha := 1 - cm + a*b*cm*(1-cm)/(a*cm+b*(1-cm))
+	mu := math.Pow(muW, alpha) * math.Pow(muG, 1-alpha) * 1e-3
+	rhoG := 1273.3 - 0.6121*tC
+	rhoW := 1000 * (1 - math.Pow(math.Abs((tC-3.98)/615), 1.71))
+	cv := (cm / rhoG) / (cm/rhoG + (1-cm)/rhoW)
+	kappa := 1 + (1.78e-6*tC*tC-1.82e-4*tC+1.41e-2)*math.Pow(math.Sin(math.Pow(cm, 1.31)*math.Pi), 0.81)
+	return mu / (kappa * (rhoG*cv + rhoW*(1-cv)))
+}
+
+// TestTunableCandidateWindowAndRecipes: the invented slurry pipe
+// (sweep/testdata/scenarios/slurry) keeps Froude and Reynolds, so the loop
+// fluid needs ν_m = ν_p/kL^3/2 with ν_p = 2e-4 m²/s (textbook similitude;
+// White, Fluid Mechanics, ch. 5), within the study's 10 %.
+//
+//   - The 10 cSt silicone oil held at 25 °C (its grade's value, 1e-5 m²/s)
+//     meets it only from (ν_p·0.9/1e-5)^2/3 to (ν_p·1.1/1e-5)^2/3, about
+//     1:6.87 to 1:7.85: a fixed candidate keeps its narrow band.
+//   - Water–glycerol held at 20 °C with its fraction free reaches every ν
+//     between water's (w = 0) and glycerol's (w = 1) at 20 °C, so its window
+//     runs from the loop's largest bore (0.5 m / 0.2 m = 1:2.5) to where the
+//     need falls below ν(w=0)/1.1: kL = (ν_p·1.1/ν(w=0))^2/3, about 1:36.3.
+//   - The recipe at the recommended scale (1:2.5) has, by Cheng 2008, the
+//     viscosity needed within 1 %; every band's recipe meets the need
+//     within the tolerance at both its ends, and the bands are contiguous.
+func TestTunableCandidateWindowAndRecipes(t *testing.T) {
+	const nuP, tol = 2e-4, 0.1
+	res := runStudy(t, scenario(t, "slurry"))
+	sr := strategy(t, res, "Froude and Reynolds")
+	var oil, mix *ComboResult
+	for _, c := range sr.Combos {
+		switch c.Medium {
+		case "loop oil":
+			oil = c
+		case "loop mix":
+			mix = c
+		}
+	}
+	if oil == nil || mix == nil {
+		t.Fatalf("combinations %v, want loop oil and loop mix", sr.Combos)
+	}
+	oneInterval(t, oil, math.Pow(nuP*(1-tol)/1e-5, 2.0/3), math.Pow(nuP*(1+tol)/1e-5, 2.0/3), "loop oil no more than 10 % below", "loop oil no more than 10 % above")
+	nu0 := nuGlycerolByHand(20, 0)
+	if len(mix.Window) != 1 {
+		t.Fatalf("loop mix window %v (%s), want one interval", mix.Window, mix.Failing)
+	}
+	iv := mix.Window[0]
+	if !relClose(iv.Lo, 2.5, 1e-9) || !relClose(iv.Hi, math.Pow(nuP*(1+tol)/nu0, 2.0/3), 1e-6) {
+		t.Errorf("loop mix window %v–%v, want 2.5–%v", iv.Lo, iv.Hi, math.Pow(nuP*(1+tol)/nu0, 2.0/3))
+	}
+	if !strings.Contains(iv.HiLimit, "loop mix no more than 10 % above") {
+		t.Errorf("small-model edge set by %q, want the mixture's band", iv.HiLimit)
+	}
+	var pv *PropertyValue
+	for i := range mix.Required {
+		if mix.Required[i].Quantity == "kinematic_viscosity" {
+			pv = &mix.Required[i]
+		}
+	}
+	if pv == nil || pv.Recipe == nil {
+		t.Fatalf("required %+v: want a recipe for kinematic_viscosity", mix.Required)
+	}
+	w := fraction(t, pv.Recipe.Conditions)
+	need := nuP / math.Pow(mix.Recommended, 1.5)
+	if got := nuGlycerolByHand(20, w); math.Abs(got-need) > 0.01*need {
+		t.Errorf("recipe %s at %s: Cheng 2008 gives ν %v, need %v (1 %%)", pv.Recipe, Scale(mix.Recommended), got, need)
+	}
+	if len(pv.Recipes) < 2 {
+		t.Fatalf("recipe bands %v, want several across 1:2.5–1:36", pv.Recipes)
+	}
+	for i, b := range pv.Recipes {
+		w := fraction(t, b.Conditions)
+		for _, k := range []float64{b.FromKL, b.ToKL} {
+			n := nuP / math.Pow(k, 1.5)
+			if got := nuGlycerolByHand(20, w); math.Abs(got-n) > tol*n*(1+1e-6) {
+				t.Errorf("band %d (%s, %s–%s): ν %v at %s, need %v ± 10 %%", i, b.Conditions, Scale(b.FromKL), Scale(b.ToKL), got, Scale(k), n)
+			}
+		}
+		if i > 0 && b.FromKL > pv.Recipes[i-1].ToKL*1.01 {
+			t.Errorf("gap between bands %d and %d: %v to %v", i-1, i, pv.Recipes[i-1].ToKL, b.FromKL)
+		}
+	}
+	first, last := pv.Recipes[0], pv.Recipes[len(pv.Recipes)-1]
+	if !relClose(first.FromKL, iv.Lo, 1e-9) || last.ToKL < iv.Hi*0.999 {
+		t.Errorf("bands cover %v–%v, want the window %v–%v", first.FromKL, last.ToKL, iv.Lo, iv.Hi)
+	}
+	// The larger model wins: the mixture at 1:2.5.
+	if sr.Best == nil || sr.Best.Medium != "loop mix" || !relClose(sr.Best.Recommended, 2.5, 1e-9) {
+		t.Errorf("best %+v, want loop mix at 1:2.5", sr.Best)
+	}
+}
+
+// fraction reads w from a recipe's conditions ("20 °C, w = 0.8").
+func fraction(t *testing.T, conds string) float64 {
+	t.Helper()
+	_, after, ok := strings.Cut(conds, "w = ")
+	if !ok {
+		t.Fatalf("conditions %q name no mass fraction", conds)
+	}
+	var w float64
+	if _, err := fmtSscan(after, &w); err != nil {
+		t.Fatalf("conditions %q: %v", conds, err)
+	}
+	return w
+}
+
+// TestTugSubstituteNamesLeastViscousLiquid: the tug's Reynolds-matched
+// fluid needs about 1e-8 m²/s; no liquid of the library can be brought
+// there at tank temperatures, and the reason says so and names the least
+// viscous one it can make (water's viscosity falls with temperature, so it
+// is found at the warm end of 5–40 °C: about 6.6e-7 m²/s at 40 °C, IAPWS
+// 2008 μ = 0.653 mPa·s over ρ = 992 kg/m³, from memory).
+func TestTugSubstituteNamesLeastViscousLiquid(t *testing.T) {
+	res := runStudy(t, scenario(t, "tug"))
+	sr := strategy(t, res, "substitute fluid")
+	for _, c := range sr.Combos {
+		if !c.Window.Empty() {
+			t.Fatalf("%s: window %v, want none", c.Facility, c.Window)
+		}
+		for _, want := range []string{"no recipe in the library reaches it", "least viscous liquid the library can make", "40 °C"} {
+			if !strings.Contains(c.Failing, want) {
+				t.Errorf("%s: reason %q lacks %q", c.Facility, c.Failing, want)
+			}
+		}
+		if c.Unmet == nil || len(c.Unmet.Matches) != 0 || c.Unmet.Quantity != "kinematic_viscosity" || c.Unmet.Required > 3.5e-8 {
+			t.Errorf("%s: unmet %+v, want kinematic_viscosity below 3.5e-8 with no match", c.Facility, c.Unmet)
+		}
+	}
+}
+
+// TestTunableConditionRanges: a Media row's KEY=LO..HI makes a condition
+// tunable within that range.
+func TestTunableConditionRanges(t *testing.T) {
+	stated, tune, err := tunableConditions("20C, w=0.3..0.9")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if len(tune) != 1 || !strings.Contains(stated, "w=0.6") {
+		t.Errorf("stated %q, ranges %v; want w=0.6 stated and one range", stated, tune)
+	}
+	for _, r := range tune {
+		if r.Min != 0.3 || r.Max != 0.9 {
+			t.Errorf("range %v, want 0.3–0.9", r)
+		}
+	}
+	if _, tune, err := tunableConditions("T=15..30C"); err != nil || len(tune) != 1 {
+		t.Errorf("T=15..30C: %v %v", tune, err)
+	} else {
+		for _, r := range tune {
+			if math.Abs(r.Min-288.15) > 1e-9 || math.Abs(r.Max-303.15) > 1e-9 {
+				t.Errorf("T range %v, want 288.15–303.15 K", r)
+			}
+		}
+	}
+	if _, _, err := tunableConditions("w=0.9..0.3"); err == nil {
+		t.Error("a reversed range is accepted")
+	}
+}
+
+func fmtSscan(s string, w *float64) (int, error) { return fmt.Sscan(s, w) }
