@@ -111,6 +111,9 @@ func Memo(res *sweep.Result) string {
 				} else {
 					fmt.Fprintf(b, "  Library entries that meet it at the recommended scale: %s.\n", matchList(pv.Quantity, pv.Matches))
 				}
+				if s := recipeSentence(pv); s != "" {
+					fmt.Fprintf(b, "  %s\n", s)
+				}
 			}
 		}
 		for _, m := range rec.Measures {
