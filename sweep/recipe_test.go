@@ -176,3 +176,106 @@ func TestTunableConditionRanges(t *testing.T) {
 }
 
 func fmtSscan(s string, w *float64) (int, error) { return fmt.Sscan(s, w) }
+
+// glycerolStudy is an invented study of a viscous prototype liquid (ν_p,
+// ρ 1200) under Froude and Reynolds, with one candidate medium given by
+// its library entry and conditions.
+func glycerolStudy(t *testing.T, nuP, entry, conditions string) *Study {
+	t.Helper()
+	return studyOf(t, map[string]string{
+		"Study": `setting,value,unit,note
+scale_from,1.5,,
+scale_to,3000,,
+points,200,,
+tolerance,0.1,,
+prototype_medium,thick liquid,,`,
+		"Prototype": `item,value,unit,scales_as,note
+barge_length,10,m,length,`,
+		"Custom": `entry,kind,property,value,unit,source
+thick liquid,fluid,density,1200,kg/m^3,invented
+thick liquid,fluid,kinematic_viscosity,` + nuP + `,m^2/s,invented
+model liquid,fluid,density,1000,kg/m^3,invented
+model liquid,fluid,kinematic_viscosity,1e-3,m^2/s,invented`,
+		"Media": `name,library_entry,conditions,note
+test liquid,` + entry + `,"` + conditions + `",`,
+		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
+substitute,,substitute,"inertia, gravity, viscosity",,,"density, gravity",,,test liquid,,,,`,
+	})
+}
+
+// TestTunableWindowBothEnds: water–glycerol held at 20 °C reaches every ν
+// from water's to glycerol's at 20 °C (Cheng 2008 and Volk & Kähler 2018,
+// written out in nuGlycerolByHand), so with ν_m = ν_p/kL^3/2 (Froude and
+// Reynolds together) its window is
+//
+//	(ν_p(1−tol)/ν(w=1))^2/3 ≤ kL ≤ (ν_p(1+tol)/ν(w=0))^2/3;
+//
+// a row that limits the fraction to w=0.3..0.9 narrows it to ν(0.3) and
+// ν(0.9); stating w=0.5 pins the fraction and leaves the narrow band of
+// one fixed value.
+func TestTunableWindowBothEnds(t *testing.T) {
+	const nuP, tol = 0.05, 0.1
+	for _, tc := range []struct {
+		conditions string
+		wLo, wHi   float64
+	}{
+		{"20C", 0, 1},
+		{"20C, w=0.3..0.9", 0.3, 0.9},
+		{"20C, w=0.5", 0.5, 0.5},
+	} {
+		res := runStudy(t, glycerolStudy(t, "0.05", "water_glycerol", tc.conditions))
+		c := onlyCombo(t, res, "substitute")
+		lo := math.Pow(nuP*(1-tol)/nuGlycerolByHand(20, tc.wHi), 2.0/3)
+		hi := math.Pow(nuP*(1+tol)/nuGlycerolByHand(20, tc.wLo), 2.0/3)
+		if len(c.Window) != 1 || !relClose(c.Window[0].Lo, lo, 1e-6) || !relClose(c.Window[0].Hi, hi, 1e-6) {
+			t.Errorf("%s: window %v (%s), want %v–%v", tc.conditions, c.Window, c.Failing, lo, hi)
+			continue
+		}
+		pv := c.Required[0]
+		if tc.wLo == tc.wHi {
+			if pv.Recipe != nil || len(pv.Recipes) != 0 {
+				t.Errorf("%s: a pinned fraction has recipes %v", tc.conditions, pv.Recipes)
+			}
+			continue
+		}
+		for _, b := range pv.Recipes {
+			if w := fraction(t, b.Conditions); w < tc.wLo-1e-9 || w > tc.wHi+1e-9 {
+				t.Errorf("%s: recipe %s outside w %v–%v", tc.conditions, b.RecipeAt, tc.wLo, tc.wHi)
+			}
+		}
+	}
+}
+
+// TestLibraryRecipesWhenCandidateFails: a fixed model liquid of 1e-3 m²/s
+// never meets ν_p/kL^3/2 with ν_p = 1e-4 (it needs 1e-4 at 1:1 and less
+// beyond), so the window is none; the library search then names recipes
+// that meet the need at the nearest scale, among them a water–glycerol
+// fraction, each within the tolerance of the need (it does not depend on
+// the density here).
+func TestLibraryRecipesWhenCandidateFails(t *testing.T) {
+	const tol = 0.1
+	res := runStudy(t, glycerolStudy(t, "1e-4", "model liquid", ""))
+	c := onlyCombo(t, res, "substitute")
+	if !c.Window.Empty() || c.Unmet == nil {
+		t.Fatalf("window %v, unmet %+v: want none with a library search", c.Window, c.Unmet)
+	}
+	need := 1e-4 / math.Pow(c.Unmet.KL, 1.5)
+	if !relClose(c.Unmet.Required, need, 1e-9) {
+		t.Errorf("unmet requirement %v at %s, want %v", c.Unmet.Required, Scale(c.Unmet.KL), need)
+	}
+	glycerol := false
+	for _, m := range c.Unmet.Matches {
+		if math.Abs(m.Value-need) > tol*need*(1+1e-9) {
+			t.Errorf("match %s (%s) has %v, need %v ± 10 %%", m.Entry, m.Conditions, m.Value, need)
+		}
+		if m.Entry == "water_glycerol" {
+			glycerol = true
+			if got := nuGlycerolByHand(20, fraction(t, m.Conditions)); math.Abs(got-need) > tol*need {
+				t.Errorf("water_glycerol %s: Cheng 2008 gives %v, need %v", m.Conditions, got, need)
+			}
+		}
+	}
+	if !glycerol || !strings.Contains(c.Failing, "the library can make it") {
+		t.Errorf("matches %+v, reason %q: want a water_glycerol recipe named", c.Unmet.Matches, c.Failing)
+	}
+}
