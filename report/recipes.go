@@ -91,7 +91,8 @@ func recipeSentence(pv sweep.PropertyValue) string {
 	}
 	s = strings.ToUpper(s[:1]) + s[1:]
 	if pv.Recipe != nil {
-		s += fmt.Sprintf(" At the recommended scale: %s (%s %s; %s %s required).", pv.Recipe, Num3(pv.Recipe.Value), unitOf(pv.Quantity), Num3(pv.Recipe.Required), unitOf(pv.Quantity))
+		s += fmt.Sprintf(" Each recipe meets the need within the study's tolerance over its band. At the recommended scale: %s (%s %s; %s %s required; met within %.1g %%).",
+			pv.Recipe, Num3(pv.Recipe.Value), unitOf(pv.Quantity), Num3(pv.Recipe.Required), unitOf(pv.Quantity), 100*pv.Recipe.Reached)
 	}
 	return s
 }

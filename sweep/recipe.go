@@ -52,6 +52,9 @@ type RecipeAt struct {
 	Conditions string  // e.g. "20 °C, w = 0.6091"
 	Value      float64 // the entry's value of the property there, SI
 	Required   float64 // the value required, SI
+	// Reached is the largest relative deviation from a requirement at the
+	// scale it was solved for: the tolerance the recipe reached.
+	Reached float64
 }
 
 // RecipeBand is one recipe and the scales it serves, kL from FromKL to
@@ -433,7 +436,7 @@ func (t *tuning) meetsAt(req linForm, ln float64, c materials.Conditions) bool {
 }
 
 func (t *tuning) recipeAt(r materials.Recipe) RecipeAt {
-	return RecipeAt{Entry: r.Entry, Conditions: r.Conditions.String(), Value: r.Target.Value * t.factor, Required: r.Target.Required * t.factor}
+	return RecipeAt{Entry: r.Entry, Conditions: r.Conditions.String(), Value: r.Target.Value * t.factor, Required: r.Target.Required * t.factor, Reached: r.Reached()}
 }
 
 // bands solves the recipes over the window: at the large-model end of each

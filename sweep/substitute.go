@@ -370,10 +370,13 @@ func (x *combo) bandFailing(limits []compiled, us []float64, condU float64) stri
 	} else {
 		fmt.Fprintf(&b, "needs %s %s at %s; %s",
 			strings.ReplaceAll(ch.q, "_", " "), sig3(req, unit), Scale(kL), ch.ownText(unit))
-		if s := x.closestEntry(ch, others); s != "" {
+		// The library's recipes at this scale, or else the closest entry
+		// and what the library can make at most (recipe_search.go).
+		found := x.searchLibrary(ch, req)
+		if s := x.closestEntry(ch, others); s != "" && len(found.matches) == 0 {
 			b.WriteString("; " + s)
 		}
-		if found := x.searchLibrary(ch, req); found.text != "" {
+		if found.text != "" {
 			b.WriteString("; " + found.text)
 			x.unmet = &Unmet{Quantity: ch.q, Required: req, KL: kL, Matches: found.matches, Reason: found.text}
 		}
