@@ -833,7 +833,9 @@ func (o *sweepOut) fill(r *ComboResult) {
 		}
 		if x.cas.Technique == "substitute" {
 			pv.Matches = x.libraryMatches(q, r.Recommended)
-			x.recipesFor(&pv, r.Window, r.Recommended)
+			if note := x.recipesFor(&pv, r.Window, r.Recommended); note != "" {
+				r.Notes = append(r.Notes, note)
+			}
 		}
 		r.Required = append(r.Required, pv)
 	}

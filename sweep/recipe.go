@@ -507,18 +507,42 @@ func checkFor(checks []check, q string) (check, bool) {
 }
 
 // recipesFor fills a required property's recipes: per band over the window
-// and at the recommended scale.
-func (x *combo) recipesFor(pv *PropertyValue, w Window, recommended float64) {
+// and at the recommended scale. It returns a note when the recipe moves a
+// given property the candidate supplies (its density) by more than 1 %.
+func (x *combo) recipesFor(pv *PropertyValue, w Window, recommended float64) string {
 	checks, _, _ := x.checks()
 	ch, ok := checkFor(checks, pv.Quantity)
 	if !ok || ch.tune == nil {
-		return
+		return ""
 	}
 	pv.Recipes = ch.tune.bands(ch.req, w, x.plan.Grid)
-	if r, ok := ch.tune.solveAt(ch.req, math.Log(recommended), false); ok {
-		ra := ch.tune.recipeAt(r)
-		pv.Recipe = &ra
+	r, ok := ch.tune.solveAt(ch.req, math.Log(recommended), false)
+	if !ok {
+		return ""
 	}
+	ra := ch.tune.recipeAt(r)
+	pv.Recipe = &ra
+	// The rest of the combination keeps the candidate's stated
+	// properties; say so where the recipe moves one it supplies.
+	var notes []string
+	v, err := ch.tune.entry.ValuesAt(r.Conditions)
+	if err != nil {
+		return ""
+	}
+	for _, par := range x.cas.Solution.Params {
+		Q := par.Quantity
+		if par.Role != "given" || x.supplier(Q) != ch.cand || Q == pv.Quantity {
+			continue
+		}
+		own, ok := ch.tune.own0[Q]
+		if !ok || !(own > 0) || math.Abs(v[Q]/own-1) <= 0.01 {
+			continue
+		}
+		unit := quantityUnit(Q)
+		notes = append(notes, fmt.Sprintf("%s of %s is %s at the recipe (%s) and %s at its stated conditions, which the scale factors use (k_%s changes by a factor %.3g)",
+			Q, ch.who, sig3(v[Q], unit), ra.Conditions, sig3(own, unit), Q, own/v[Q]))
+	}
+	return strings.Join(notes, "; ")
 }
 
 // ownText is what a check's candidate has: its value at its conditions,
