@@ -146,7 +146,7 @@ func tunableConditions(text string) (string, map[materials.Condition]materials.R
 			return "", nil, fmt.Errorf("conditions %q, part %q: the lower end must come first and be below the upper", text, part)
 		}
 		tune[k] = materials.Range{Min: a, Max: b}
-		keep = append(keep, fmt.Sprintf("%s=%s", key, strconv.FormatFloat(middle(k, a, b), 'g', 10, 64)+siSuffix(k)))
+		keep = append(keep, key+"="+writeCondition(k, (a+b)/2))
 	}
 	return strings.Join(keep, ", "), tune, nil
 }
@@ -160,19 +160,18 @@ func numericPrefix(s string) int {
 	return 0
 }
 
-func middle(_ materials.Condition, a, b float64) float64 { return (a + b) / 2 }
-
-// siSuffix is the unit a condition's SI value is written back with.
-func siSuffix(k materials.Condition) string {
+// writeCondition writes a condition's SI value back in a form
+// ParseConditions reads: kelvin, pascal, g/kg, a bare mass fraction.
+func writeCondition(k materials.Condition, v float64) string {
 	switch k {
 	case materials.Temperature:
-		return "K"
+		return strconv.FormatFloat(v, 'g', 12, 64) + "K"
 	case materials.Pressure:
-		return "Pa"
+		return strconv.FormatFloat(v, 'g', 12, 64) + "Pa"
 	case materials.Salinity:
-		return "‰"
+		return strconv.FormatFloat(v*1e3, 'g', 12, 64) + "g/kg"
 	}
-	return ""
+	return strconv.FormatFloat(v, 'g', 12, 64)
 }
 
 // tuningOf returns how candidate c can be brought to the required q, or

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"scaleplan/materials"
 )
 
 // nuGlycerolByHand is the kinematic viscosity (m²/s) of a water–glycerol
@@ -168,6 +170,18 @@ func TestTunableConditionRanges(t *testing.T) {
 			if math.Abs(r.Min-288.15) > 1e-9 || math.Abs(r.Max-303.15) > 1e-9 {
 				t.Errorf("T range %v, want 288.15–303.15 K", r)
 			}
+		}
+	}
+	if stated, tune, err := tunableConditions("S=10..30g/kg, 15C"); err != nil || len(tune) != 1 {
+		t.Errorf("S=10..30g/kg: %v %v", tune, err)
+	} else {
+		for _, r := range tune {
+			if math.Abs(r.Min-0.01) > 1e-12 || math.Abs(r.Max-0.03) > 1e-12 {
+				t.Errorf("S range %v, want 0.01–0.03 kg/kg", r)
+			}
+		}
+		if c, err := materials.ParseConditions(stated); err != nil || math.Abs(c.Salinity-0.02) > 1e-12 || math.Abs(c.Temperature-288.15) > 1e-9 {
+			t.Errorf("stated %q reads as %+v (%v), want S = 20 g/kg at 15 °C", stated, c, err)
 		}
 	}
 	if _, _, err := tunableConditions("w=0.9..0.3"); err == nil {
