@@ -88,6 +88,9 @@ type tuning struct {
 	statedValue  float64
 	tol          float64
 	reqDecreases bool // the requirement falls as kL grows
+	// also are the candidate's other requirements, met at the same
+	// conditions (recipe_joint.go).
+	also []alsoReq
 }
 
 // recipeMemo keeps, for a plan, the extremes of tunable candidates and the
@@ -325,10 +328,8 @@ func (p *Plan) extremes(t *tuning) (float64, float64, materials.Conditions, mate
 	return lo, hi, loAt, hiAt, ok
 }
 
-// findExtremes samples the box (every corner included) and refines the
-// best samples along each free condition by golden sections.
+// findExtremes finds min h and max h over the tunable box.
 func (t *tuning) findExtremes() (lo, hi float64, loAt, hiAt materials.Conditions, ok bool) {
-	n := []int{0, 256, 64, 16, 8}[min(len(t.free), 4)]
 	eval := func(c materials.Conditions) float64 {
 		v, err := t.entry.ValuesAt(c)
 		if err != nil {
@@ -336,7 +337,29 @@ func (t *tuning) findExtremes() (lo, hi float64, loAt, hiAt materials.Conditions
 		}
 		return t.effective(v)
 	}
-	lo, hi = math.Inf(1), math.Inf(-1)
+	nlo, loAt := t.boxBest(func(c materials.Conditions) float64 { return -eval(c) })
+	hi, hiAt = t.boxBest(eval)
+	lo = -nlo
+	if !(lo > 0) || math.IsInf(hi, 0) || math.IsNaN(hi) {
+		return 0, 0, loAt, hiAt, false
+	}
+	return lo, hi, loAt, hiAt, true
+}
+
+// boxBest is the largest value of f over the tunable box and where: the
+// box is sampled (every corner included) and the best sample refined along
+// each free condition by golden sections. NaN values count as −Inf.
+func (t *tuning) boxBest(f func(materials.Conditions) float64) (float64, materials.Conditions) {
+	n := []int{0, 256, 64, 16, 8}[min(len(t.free), 4)]
+	g := func(c materials.Conditions) float64 {
+		v := f(c)
+		if math.IsNaN(v) {
+			return math.Inf(-1)
+		}
+		return v
+	}
+	best, at := math.Inf(-1), t.spec.At
+	first := true
 	idx := make([]int, len(t.free))
 	for {
 		c := t.spec.At
@@ -344,13 +367,8 @@ func (t *tuning) findExtremes() (lo, hi float64, loAt, hiAt materials.Conditions
 			a, b := t.rangeOf(k)
 			c = c.With(k, a+(b-a)*float64(idx[i])/float64(n))
 		}
-		if h := eval(c); h > 0 {
-			if h < lo {
-				lo, loAt = h, c
-			}
-			if h > hi {
-				hi, hiAt = h, c
-			}
+		if v := g(c); v > best || first {
+			best, at, first = v, c, false
 		}
 		i := 0
 		for ; i < len(idx); i++ {
@@ -363,34 +381,55 @@ func (t *tuning) findExtremes() (lo, hi float64, loAt, hiAt materials.Conditions
 			break
 		}
 	}
-	if math.IsInf(lo, 0) || math.IsInf(hi, 0) {
-		return 0, 0, loAt, hiAt, false
-	}
-	refine := func(c materials.Conditions, sign float64) (float64, materials.Conditions) {
-		best := sign * eval(c)
-		for _, k := range t.free {
-			a, b := t.rangeOf(k)
-			v0, _ := c.Get(k)
-			step := (b - a) / float64(n)
-			l, r := math.Max(a, v0-step), math.Min(b, v0+step)
-			g := (math.Sqrt(5) - 1) / 2
-			for it := 0; it < 60 && r-l > 1e-12*(b-a); it++ {
-				m1, m2 := r-g*(r-l), l+g*(r-l)
-				if sign*eval(c.With(k, m1)) < sign*eval(c.With(k, m2)) {
-					r = m2
-				} else {
-					l = m1
-				}
-			}
-			if h := sign * eval(c.With(k, (l+r)/2)); h < best {
-				best, c = h, c.With(k, (l+r)/2)
+	phi := (math.Sqrt(5) - 1) / 2
+	for _, k := range t.free {
+		a, b := t.rangeOf(k)
+		v0, _ := at.Get(k)
+		step := (b - a) / float64(n)
+		l, r := math.Max(a, v0-step), math.Min(b, v0+step)
+		for it := 0; it < 60 && r-l > 1e-12*(b-a); it++ {
+			m1, m2 := r-phi*(r-l), l+phi*(r-l)
+			if g(at.With(k, m1)) < g(at.With(k, m2)) {
+				l = m1
+			} else {
+				r = m2
 			}
 		}
-		return sign * best, c
+		if v := g(at.With(k, (l+r)/2)); v > best {
+			best, at = v, at.With(k, (l+r)/2)
+		}
 	}
-	lo, loAt = refine(loAt, 1)
-	hi, hiAt = refine(hiAt, -1)
-	return lo, hi, loAt, hiAt, true
+	return best, at
+}
+
+// jointMargin is, at ln kL, the largest over the box of the smallest
+// margin of the requirements (log10(1 + tol) − log10(value/required) above
+// the need, log10(value/required) − log10(1 − tol) below it):
+// non-negative exactly where one recipe meets them all.
+func (t *tuning) jointMargin(req linForm, ln float64) (float64, materials.Conditions) {
+	sp := t.specAt(req, ln, 1, t.tol)
+	above, below := math.Log10(1+t.tol), math.Log10(1-math.Min(t.tol, 0.999999))
+	targets := append([]materials.Target{sp.Target}, sp.Also...)
+	return t.boxBest(func(c materials.Conditions) float64 {
+		v, err := t.entry.ValuesAt(c)
+		if err != nil {
+			return math.NaN()
+		}
+		m := math.Inf(1)
+		for _, tg := range targets {
+			r := tg.Of(v)
+			if !(r > 0) || !(v[tg.Quantity] > 0) {
+				return math.NaN()
+			}
+			d := math.Log10(v[tg.Quantity] / r)
+			if d >= 0 {
+				m = math.Min(m, above-d)
+			} else {
+				m = math.Min(m, d-below)
+			}
+		}
+		return m
+	})
 }
 
 // specAt is the recipe spec at ln kL: the requirement from the check's
@@ -407,6 +446,10 @@ func (t *tuning) specAt(req linForm, ln, aim, tol float64) materials.RecipeSpec 
 		}
 		return r
 	}}
+	sp.Also = nil
+	for _, a := range t.also {
+		sp.Also = append(sp.Also, a.target(ln, t.tol))
+	}
 	return sp
 }
 
@@ -425,7 +468,21 @@ func (t *tuning) solveAt(req linForm, ln float64, aimed bool) (materials.Recipe,
 		}
 	}
 	r, err := t.entry.Recipe(t.specAt(req, ln, 1, t.tol))
-	return r, err == nil && r.Met
+	if err != nil {
+		return materials.Recipe{}, false
+	}
+	if !r.Met && len(t.also) > 0 {
+		// The solver puts the target on its requirement; where the
+		// others hold only with the target off it (within its
+		// tolerance), take the conditions of the best joint margin.
+		if m, c := t.jointMargin(req, ln); m >= 0 {
+			if e, err := t.entry.Evaluate(t.specAt(req, ln, 1, t.tol), c); err == nil && e.Met {
+				e.Method = "the conditions where every requirement has the most margin (sampled box, golden sections)"
+				return e, true
+			}
+		}
+	}
+	return r, r.Met
 }
 
 // meetsAt evaluates a recipe's conditions against the requirement at ln.
@@ -454,6 +511,23 @@ func (t *tuning) bands(req linForm, w Window, grid []float64) []RecipeBand {
 		}
 		var cur *RecipeBand
 		var conds materials.Conditions
+		// end closes the current band where its recipe stops serving,
+		// between ln a (served) and ln b (not), to 0.1 % in kL, and
+		// returns where the next band starts.
+		end := func(a, b float64) float64 {
+			for b-a > math.Log(1.001)/4 {
+				m := (a + b) / 2
+				if t.meetsAt(req, m, conds) {
+					a = m
+				} else {
+					b = m
+				}
+			}
+			cur.ToKL = math.Exp(a)
+			out = append(out, *cur)
+			cur = nil
+			return math.Exp(b)
+		}
 		for _, k := range pts {
 			ln := math.Log(k)
 			if cur != nil && t.meetsAt(req, ln, conds) {
@@ -462,31 +536,25 @@ func (t *tuning) bands(req linForm, w Window, grid []float64) []RecipeBand {
 			}
 			from := k
 			if cur != nil {
-				// The break, to 0.1 % in kL.
-				a, b := math.Log(cur.ToKL), ln
-				for b-a > math.Log(1.001)/4 {
-					m := (a + b) / 2
-					if t.meetsAt(req, m, conds) {
-						a = m
-					} else {
-						b = m
-					}
+				from = end(math.Log(cur.ToKL), ln)
+			}
+			for tries := 0; tries < 50 && cur == nil; tries++ {
+				r, ok := t.solveAt(req, math.Log(from), true)
+				if !ok && from != k {
+					r, ok = t.solveAt(req, ln, true)
+					from = k
 				}
-				cur.ToKL = math.Exp(a)
-				out = append(out, *cur)
-				cur = nil
-				from = math.Exp(b)
+				if !ok {
+					break
+				}
+				conds = r.Conditions
+				cur = &RecipeBand{RecipeAt: t.recipeAt(r), FromKL: from, ToKL: from}
+				if t.meetsAt(req, ln, conds) {
+					cur.ToKL = k
+				} else {
+					from = end(math.Log(from), ln)
+				}
 			}
-			r, ok := t.solveAt(req, math.Log(from), true)
-			if !ok {
-				r, ok = t.solveAt(req, ln, true)
-				from = k
-			}
-			if !ok {
-				continue
-			}
-			conds = r.Conditions
-			cur = &RecipeBand{RecipeAt: t.recipeAt(r), FromKL: from, ToKL: k}
 		}
 		if cur != nil {
 			out = append(out, *cur)

@@ -293,3 +293,83 @@ func TestLibraryRecipesWhenCandidateFails(t *testing.T) {
 		t.Errorf("matches %+v, reason %q: want a water_glycerol recipe named", c.Unmet.Matches, c.Failing)
 	}
 }
+
+// rhoGlycerolByHand is the density (kg/m³) of a water–glycerol mixture at
+// tC °C by Volk & Kähler 2018 (Exp. Fluids 59:75), written out.
+func rhoGlycerolByHand(tC, cm float64) float64 {
+	rhoG := 1273.3 - 0.6121*tC
+	rhoW := 1000 * (1 - math.Pow(math.Abs((tC-3.98)/615), 1.71))
+	cv := (cm / rhoG) / (cm/rhoG + (1-cm)/rhoW)
+	kappa := 1 + (1.78e-6*tC*tC-1.82e-4*tC+1.41e-2)*math.Pow(math.Sin(math.Pow(cm, 1.31)*math.Pi), 0.81)
+	return kappa * (rhoG*cv + rhoW*(1-cv))
+}
+
+// TestJointRecipeTwoRequirements: with the density scale fixed at 1
+// (fix: density=1), Froude and Reynolds need both ν_m = ν_p/kL^3/2 and
+// μ_m = ρ_p·ν_m of the model liquid, within 10 % each, at the same
+// mixture. For water–glycerol at 20 °C (ν and ρ both rise with w; Cheng
+// 2008, Volk & Kähler 2018) against ρ_p = 1300 kg/m³:
+//
+//   - large-model end: the need is highest, met at w = 1 only while
+//     req ≤ min(ν(1)/0.9, ρ(1)ν(1)/(0.9·ρ_p)) = ρ(1)ν(1)/1170 (ρ(1) < ρ_p),
+//     so kL ≥ (ν_p·1170/(ρ(1)ν(1)))^2/3;
+//   - small-model end: ν/req ≤ 1.1 and ρν/(ρ_p req) ≥ 0.9 together need
+//     ρ(w) ≥ ρ_p·0.9/1.1, so the thinnest mixture allowed is w* with
+//     ρ(w*) = ρ_p·0.9/1.1 (found here by bisection on the density formula),
+//     and kL ≤ (ν_p·1.1/ν(w*))^2/3.
+//
+// Each property's own band alone would reach further (w = 0 for ν), so
+// the joint limit sets the small-model edge; the recipes per band meet
+// both properties.
+func TestJointRecipeTwoRequirements(t *testing.T) {
+	const nuP, rhoP, tol = 5e-3, 1300.0, 0.1
+	s := studyOf(t, map[string]string{
+		"Study": `setting,value,unit,note
+scale_from,1.5,,
+scale_to,300,,
+points,200,,
+tolerance,0.1,,
+prototype_medium,thick liquid,,`,
+		"Prototype": `item,value,unit,scales_as,note
+barge_length,10,m,length,`,
+		"Custom": `entry,kind,property,value,unit,source
+thick liquid,fluid,density,1300,kg/m^3,invented
+thick liquid,fluid,kinematic_viscosity,5e-3,m^2/s,invented`,
+		"Media": `name,library_entry,conditions,note
+test liquid,water_glycerol,20C,`,
+		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
+substitute,,substitute,"inertia, gravity, viscosity",,,gravity,,density=1,test liquid,,,,`,
+	})
+	res := runStudy(t, s)
+	c := onlyCombo(t, res, "substitute")
+	rho1, nu1 := rhoGlycerolByHand(20, 1), nuGlycerolByHand(20, 1)
+	lo := math.Pow(nuP*rhoP*(1-tol)/(rho1*nu1), 2.0/3)
+	a, b := 0.0, 1.0 // ρ rises with w
+	for b-a > 1e-12 {
+		m := (a + b) / 2
+		if rhoGlycerolByHand(20, m) < rhoP*(1-tol)/(1+tol) {
+			a = m
+		} else {
+			b = m
+		}
+	}
+	hi := math.Pow(nuP*(1+tol)/nuGlycerolByHand(20, a), 2.0/3)
+	if len(c.Window) != 1 || !relClose(c.Window[0].Lo, lo, 3e-3) || !relClose(c.Window[0].Hi, hi, 3e-3) {
+		t.Fatalf("window %v (%s), want %v–%v (0.3 %%)", c.Window, c.Failing, lo, hi)
+	}
+	if !strings.Contains(c.Window[0].HiLimit, "at once") {
+		t.Errorf("small-model edge set by %q, want the joint recipe", c.Window[0].HiLimit)
+	}
+	for _, pv := range c.Required {
+		for _, band := range pv.Recipes {
+			w := fraction(t, band.Conditions)
+			nu, rho := nuGlycerolByHand(20, w), rhoGlycerolByHand(20, w)
+			for _, k := range []float64{band.FromKL, band.ToKL} {
+				need := nuP / math.Pow(k, 1.5)
+				if math.Abs(nu-need) > tol*need*1.001 || math.Abs(rho*nu-rhoP*need) > tol*rhoP*need*1.001 {
+					t.Errorf("%s band %s at %s: ν %v (need %v), μ %v (need %v)", pv.Quantity, band.Conditions, Scale(k), nu, need, rho*nu, rhoP*need)
+				}
+			}
+		}
+	}
+}

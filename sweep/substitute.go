@@ -230,6 +230,7 @@ next:
 		ch.protoValue, _ = x.proto(q)
 		out = append(out, ch)
 	}
+	linkJoint(out)
 	return out, blocked, notes
 }
 
@@ -246,7 +247,11 @@ func (x *combo) bandLimits() ([]compiled, []string, error) {
 			out = append(out, c)
 		}
 	}
-	return out, notes, nil
+	joint, err := x.jointLimits(checks)
+	if err != nil {
+		return nil, nil, err
+	}
+	return append(out, joint...), notes, nil
 }
 
 // bandLimit is one side of a check as a limit on the required value q:
