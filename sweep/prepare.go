@@ -322,6 +322,7 @@ func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Probl
 			continue
 		}
 		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e, tune: tune})
+		p.warnDefaultedMixture(sheet, r.Row, name, e, cond)
 	}
 	return out
 }

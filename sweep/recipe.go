@@ -177,13 +177,24 @@ func writeCondition(k materials.Condition, v float64) string {
 	return strconv.FormatFloat(v, 'g', 12, 64)
 }
 
+// warnDefaultedMixture says, once per row, that a mixture named without
+// its fraction is tuned where a strategy requires a property of it, while
+// its stated properties (its density, in the scale factors) are taken at
+// the default fraction.
+func (p *Plan) warnDefaultedMixture(sheet string, row int, name string, e materials.Entry, cond materials.Conditions) {
+	if note := e.DefaultNote(cond); note != "" {
+		p.Warnings.Add(At(sheet, row, "conditions"), "%s (%s): %s; the fraction is tuned where a strategy requires a property of it, and its other properties (its density in the scale factors) are taken at the default; state the fraction, or give the range it may take (w=0.3..0.9)",
+			name, e.Name, note)
+	}
+}
+
 // tuningOf returns how candidate c can be brought to the required q, or
 // nil when it cannot be moved (fixed properties, every condition held).
 func (x *combo) tuningOf(c *Candidate2, q string, own float64) *tuning {
-	e := c.entry
-	if c == nil || len(e.Ranges) == 0 {
+	if c == nil || len(c.entry.Ranges) == 0 {
 		return nil
 	}
+	e := c.entry
 	at := c.cond
 	axisCond := ""
 	if !math.IsNaN(x.axis) && isCondition(x.plan.Settings.Axis) && c.Role == "medium" {

@@ -373,3 +373,28 @@ substitute,,substitute,"inertia, gravity, viscosity",,,gravity,,density=1,test l
 		}
 	}
 }
+
+// TestDefaultedMixtureWarned: a mixture named without its fraction is
+// tuned, but its other properties are taken at the default fraction: the
+// study says so once, at the row (spec §5: a name never stands silently
+// for a mixture at a default fraction); a stated range says nothing.
+func TestDefaultedMixtureWarned(t *testing.T) {
+	for _, tc := range []struct {
+		conditions string
+		warned     bool
+	}{{"20C", true}, {"20C, w=0..1", false}, {"20C, w=0.6", false}} {
+		plan, err := prepare(t, glycerolStudy(t, "0.05", "water_glycerol", tc.conditions))
+		if err != nil {
+			t.Fatal(err)
+		}
+		n := 0
+		for _, w := range plan.Warnings {
+			if strings.Contains(w.String(), "w = 0.5 by default") && strings.Contains(w.String(), "Media!C2") {
+				n++
+			}
+		}
+		if (n == 1) != tc.warned || n > 1 {
+			t.Errorf("%s: %d warnings of the default fraction (%v), want warned %v", tc.conditions, n, plan.Warnings.Strings(), tc.warned)
+		}
+	}
+}
