@@ -574,6 +574,39 @@ func (t *tuning) bands(req linForm, w Window, grid []float64) []RecipeBand {
 	return out
 }
 
+// recipeMatch is a tunable library entry's recipe at ln kL, for a match
+// list: the recipe of the check of q, or of the check q is judged through
+// (ν for μ), with the entry's value of q there. tuned is false when the
+// entry has no tunable check.
+func recipeMatch(checks []check, q string, ln float64) (m Match, tuned, ok bool) {
+	ch, found := checkFor(checks, q)
+	if !found || ch.tune == nil {
+		found = false
+		for _, c := range checks {
+			if c.kind == "match" && c.tune != nil {
+				ch, found = c, true
+				break
+			}
+		}
+	}
+	if !found {
+		return Match{}, false, false
+	}
+	r, met := ch.tune.solveAt(ch.req, ln, false)
+	if !met {
+		return Match{}, true, false
+	}
+	m = Match{Entry: r.Entry, Conditions: r.Conditions.String(), Value: math.NaN()}
+	if ch.q == q {
+		m.Value = ch.tune.recipeAt(r).Value
+	} else if v, err := ch.tune.entry.ValuesAt(r.Conditions); err == nil {
+		if x, has := v[q]; has {
+			m.Value = x
+		}
+	}
+	return m, true, true
+}
+
 // checkFor finds the check of a required property.
 func checkFor(checks []check, q string) (check, bool) {
 	for _, ch := range checks {

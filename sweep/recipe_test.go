@@ -1,6 +1,7 @@
 package sweep
 
 import (
+	"context"
 	"fmt"
 	"math"
 	"strings"
@@ -395,6 +396,32 @@ func TestDefaultedMixtureWarned(t *testing.T) {
 		}
 		if (n == 1) != tc.warned || n > 1 {
 			t.Errorf("%s: %d warnings of the default fraction (%v), want warned %v", tc.conditions, n, plan.Warnings.Strings(), tc.warned)
+		}
+	}
+}
+
+// BenchmarkSlurryRecipes runs the slurry scenario: two candidates, one of
+// them tuned per band of scales.
+func BenchmarkSlurryRecipes(b *testing.B) {
+	s, err := LoadScenario("slurry")
+	if err != nil {
+		b.Fatal(err)
+	}
+	lib, err := materials.Default()
+	if err != nil {
+		b.Fatal(err)
+	}
+	cat, err := NewFacilityCatalog()
+	if err != nil {
+		b.Fatal(err)
+	}
+	for b.Loop() {
+		plan, err := Prepare(s, lib, cat)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := plan.Run(context.Background()); err != nil {
+			b.Fatal(err)
 		}
 	}
 }

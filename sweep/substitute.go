@@ -568,13 +568,11 @@ func (x *combo) libraryMatches(q string, kL float64) []Match {
 		if pr, err := e.Property(q, materials.Conditions{}); err == nil {
 			m.Value = pr.Value
 		}
-		if ch, ok := checkFor(checks, q); ok && ch.tune != nil {
-			r, met := ch.tune.solveAt(ch.req, ln, false)
-			if !met {
+		if rm, tuned, ok := recipeMatch(checks, q, ln); tuned {
+			if !ok {
 				continue
 			}
-			ra := ch.tune.recipeAt(r)
-			m.Conditions, m.Value = ra.Conditions, ra.Value
+			m.Conditions, m.Value = rm.Conditions, rm.Value
 		}
 		out = append(out, m)
 	}
