@@ -197,6 +197,13 @@ func fmtSscan(s string, w *float64) (int, error) { return fmt.Sscan(s, w) }
 // its library entry and conditions.
 func glycerolStudy(t *testing.T, nuP, entry, conditions string) *Study {
 	t.Helper()
+	return liquidStudy(t, "1200", nuP, entry, conditions, "density, gravity", "")
+}
+
+// liquidStudy is glycerolStudy with the prototype density, the strategy's
+// given properties and its fix stated.
+func liquidStudy(t *testing.T, rhoP, nuP, entry, conditions, given, fix string) *Study {
+	t.Helper()
 	return studyOf(t, map[string]string{
 		"Study": `setting,value,unit,note
 scale_from,1.5,,
@@ -207,14 +214,14 @@ prototype_medium,thick liquid,,`,
 		"Prototype": `item,value,unit,scales_as,note
 barge_length,10,m,length,`,
 		"Custom": `entry,kind,property,value,unit,source
-thick liquid,fluid,density,1200,kg/m^3,invented
+thick liquid,fluid,density,` + rhoP + `,kg/m^3,invented
 thick liquid,fluid,kinematic_viscosity,` + nuP + `,m^2/s,invented
 model liquid,fluid,density,1000,kg/m^3,invented
 model liquid,fluid,kinematic_viscosity,1e-3,m^2/s,invented`,
 		"Media": `name,library_entry,conditions,note
 test liquid,` + entry + `,"` + conditions + `",`,
 		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
-substitute,,substitute,"inertia, gravity, viscosity",,,"density, gravity",,,test liquid,,,,`,
+substitute,,substitute,"inertia, gravity, viscosity",,,"` + given + `",,` + fix + `,test liquid,,,,`,
 	})
 }
 
@@ -324,23 +331,7 @@ func rhoGlycerolByHand(tC, cm float64) float64 {
 // both properties.
 func TestJointRecipeTwoRequirements(t *testing.T) {
 	const nuP, rhoP, tol = 5e-3, 1300.0, 0.1
-	s := studyOf(t, map[string]string{
-		"Study": `setting,value,unit,note
-scale_from,1.5,,
-scale_to,300,,
-points,200,,
-tolerance,0.1,,
-prototype_medium,thick liquid,,`,
-		"Prototype": `item,value,unit,scales_as,note
-barge_length,10,m,length,`,
-		"Custom": `entry,kind,property,value,unit,source
-thick liquid,fluid,density,1300,kg/m^3,invented
-thick liquid,fluid,kinematic_viscosity,5e-3,m^2/s,invented`,
-		"Media": `name,library_entry,conditions,note
-test liquid,water_glycerol,20C,`,
-		"Strategies": `strategy,case,technique,retain,relax,untie,given,tuned,fix,media,materials,facilities,correction,note
-substitute,,substitute,"inertia, gravity, viscosity",,,gravity,,density=1,test liquid,,,,`,
-	})
+	s := liquidStudy(t, "1300", "5e-3", "water_glycerol", "20C", "gravity", "density=1")
 	res := runStudy(t, s)
 	c := onlyCombo(t, res, "substitute")
 	rho1, nu1 := rhoGlycerolByHand(20, 1), nuGlycerolByHand(20, 1)
