@@ -115,6 +115,9 @@ func memoText(res *sweep.Result, figures []Figure) string {
 				} else {
 					fmt.Fprintf(b, "  Library entries that meet it at the recommended scale: %s.\n", matchList(pv.Quantity, pv.Matches))
 				}
+				if s := recipeSentence(pv); s != "" {
+					fmt.Fprintf(b, "  %s\n", s)
+				}
 			}
 		}
 		for _, m := range rec.Measures {

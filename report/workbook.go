@@ -365,6 +365,10 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 		"recommended (1:x)", "recommended kL [-]", "model length [m]", "cost [" + res.Plan.Settings.Currency + "]",
 		"cheapest kL [-]", "required and measured at recommended scale (model values, SI unless stated)", "relaxed groups π_p/π_m", "notes", "robust window (1:x)", "robust: input that matters most"}
 	widths := []float64{22, 16, 14, 16, 16, 18, 12, 22, 11, 11, 26, 26, 14, 12, 12, 12, 12, 40, 40, 60}
+	recipeQs := recipeQuantities(res)
+	for _, q := range recipeQs {
+		header = append(header, "recipe per scale band: "+q)
+	}
 	s, err := newSheet(f, "Windows", header, widths, bold)
 	if err != nil {
 		return err
@@ -407,10 +411,14 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 			if c.Friction != nil {
 				notes = append(notes, fmt.Sprintf("ITTC-1957: C_F model %.4g, ship %.4g, ΔC_F %.4g", c.Friction.CFModel, c.Friction.CFProto, c.Friction.Delta))
 			}
-			if err := s.add(c.Strategy, c.Case, c.Technique, c.Medium, c.Material, c.Facility, sig(c.Axis),
+			cells := []any{c.Strategy, c.Case, c.Technique, c.Medium, c.Material, c.Facility, sig(c.Axis),
 				WindowText(c.Window), sig(lo), sig(hi), large, small, sweep.Scale(c.Recommended), sig(c.Recommended),
 				sig(c.ModelLength), money(c.Cost), sig(c.Cheapest), strings.Join(req, "; "), strings.Join(mm, "; "),
-				strings.Join(notes, "; "), RobustText(c), robustInput(c)); err != nil {
+				strings.Join(notes, "; "), RobustText(c), robustInput(c)}
+			for _, q := range recipeQs {
+				cells = append(cells, recipeCell(c, q))
+			}
+			if err := s.add(cells...); err != nil {
 				return err
 			}
 		}

@@ -101,7 +101,10 @@ type ComboResult struct {
 	// AxisMeasures holds, with a second axis, each study measure at model
 	// scale over the grid, one row per axis value (in the measure's unit).
 	AxisMeasures map[string][][]float64
-	Err          string
+	// Unmet is, for an empty window a required property empties, what it
+	// needs and the library recipes that could meet it (recipe_search.go).
+	Unmet *Unmet
+	Err   string
 	// axis sweeps the second axis again on demand (AxisMarginRows).
 	axis *axisSweep
 }
@@ -121,7 +124,12 @@ type PropertyValue struct {
 	AtLo, AtHi    float64 // at the window edges (model values)
 	AtRecommended float64
 	Matches       []Match // library entries that meet it within tolerance at the recommended scale
-	Tuned         bool
+	// Recipes are, for a candidate brought to the requirement by its
+	// tunable conditions (recipe.go), the recipe of each scale band, and
+	// Recipe the one at the recommended scale (nil when none is solved).
+	Recipes []RecipeBand
+	Recipe  *RecipeAt
+	Tuned   bool
 	// Own is the candidate's own value of the property (NaN if it has
 	// none); a device (added mass, springs, a backbone beam) supplies the
 	// difference.
@@ -358,6 +366,9 @@ type compiled struct {
 	// band is set on a limit that checks a candidate's own value against
 	// the value the strategy requires (substitute.go).
 	band *band
+	// fn, when set, gives the margin of a limit that is no expression (a
+	// joint recipe, recipe_joint.go).
+	fn func(u float64) float64
 }
 
 // newCompiled readies a limit whose names resolve to forms; a product of
@@ -706,6 +717,9 @@ func (l compiled) margin(u float64) float64 {
 	if l.info.Linear {
 		return l.info.A + l.info.B*u
 	}
+	if l.fn != nil {
+		return l.fn(u)
+	}
 	ln := u * math.Ln10
 	return l.lim.Margin(func(n string) float64 { return l.forms[n].at(ln) })
 }
@@ -730,7 +744,7 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
 	if o.window.Empty() && o.us != nil {
 		if s := x.bandFailing(o.limits, o.us, o.condU); s != "" {
-			r.Failing = s
+			r.Failing, r.Unmet = s, x.unmet
 		}
 	}
 	r.Margins, r.Limiting = o.margins, o.limiting
@@ -823,6 +837,9 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 		}
 		if x.cas.Technique == "substitute" {
 			pv.Matches = x.libraryMatches(q, r.Recommended)
+			if note := x.recipesFor(&pv, r.Window, r.Recommended); note != "" {
+				r.Notes = append(r.Notes, note)
+			}
 		}
 		r.Required = append(r.Required, pv)
 	}

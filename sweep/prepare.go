@@ -57,6 +57,8 @@ type Plan struct {
 	// rows failed a check: still known names, so other checks do not
 	// report them again as unknown (see failedNames).
 	failed failedNames
+	// recipes memoises what tunable candidates reach (recipe.go).
+	recipes *recipeMemo
 }
 
 // ProtoItem is a prototype item in SI.
@@ -77,6 +79,8 @@ type Candidate2 struct {
 	Row                     int
 	cond                    materials.Conditions
 	entry                   materials.Entry
+	// tune holds the conditions the row gives as ranges (recipe.go).
+	tune map[materials.Condition]materials.Range
 }
 
 // Facility is a named facility with its capabilities in SI.
@@ -137,7 +141,7 @@ type PlanMeasure struct {
 // catalogue and the units, and returns every problem at once.
 func Prepare(s *Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, error) {
 	var ps Problems
-	p := &Plan{Study: s, Library: lib, Catalog: cat, Items: map[string]ProtoItem{}, Proto: map[string]float64{}, ProtoSrc: map[string]string{}}
+	p := &Plan{Study: s, Library: lib, Catalog: cat, Items: map[string]ProtoItem{}, Proto: map[string]float64{}, ProtoSrc: map[string]string{}, recipes: &recipeMemo{}}
 	p.Settings = parseSettings(s, &ps)
 	p.prepareCustom(&ps)
 	p.prepareItems(&ps)
@@ -328,7 +332,11 @@ func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Probl
 		if entry == "" {
 			entry = name
 		}
-		props, e, cond, err := p.entryProps(entry, r.Conditions)
+		stated, tune, rerr := tunableConditions(r.Conditions)
+		props, e, cond, err := p.entryProps(entry, stated)
+		if err == nil {
+			err = rerr
+		}
 		if err != nil {
 			col := "library_entry"
 			if _, lerr := p.Library.Lookup(entry); lerr == nil {
@@ -337,7 +345,8 @@ func (p *Plan) prepareCandidates(rows []Candidate, sheet, role string, ps *Probl
 			ps.Add(At(sheet, r.Row, col), "%v", err)
 			continue
 		}
-		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e})
+		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e, tune: tune})
+		p.warnDefaultedMixture(sheet, r.Row, name, e, cond)
 	}
 	return out
 }
