@@ -5,6 +5,7 @@ import (
 
 	"github.com/xuri/excelize/v2"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -75,15 +76,16 @@ func AssumptionLines(res *sweep.Result, sr *sweep.StrategyResult) []string {
 	return out
 }
 
-// memoWarnings lists the study's warnings.
+// memoWarnings lists the study's warnings, in the memo's words.
 func memoWarnings(b *strings.Builder, res *sweep.Result) {
 	lines := WarningLines(res)
 	if len(lines) == 0 {
 		return
 	}
+	keep := userNames(res)
 	fmt.Fprintf(b, "## Warnings (%d)\n\n", len(lines))
 	for _, l := range lines {
-		fmt.Fprintf(b, "- %s\n", md(l))
+		fmt.Fprintf(b, "- %s\n", md(proseText(l, keep)))
 	}
 	b.WriteString("\n")
 }
@@ -95,33 +97,143 @@ func memoWhy(b *strings.Builder, res *sweep.Result) {
 	if rec == nil {
 		return
 	}
-	fmt.Fprintf(b, "**Why this strategy.** It ranks first of %d: it %s.", len(res.Ranking), rec.Reason)
+	keep := userNames(res)
+	fmt.Fprintf(b, "**Why this strategy.** It ranks first of %d: it %s.", len(res.Ranking), memoReason(res, *rec, keep))
 	for _, e := range res.Ranking {
 		if e.Strategy == rec.Strategy {
 			continue
 		}
 		switch {
 		case !e.Feasible:
-			fmt.Fprintf(b, " %s ranks %d: %s.", e.Strategy, e.Rank, e.Reason)
+			fmt.Fprintf(b, " %s ranks %d: %s.", e.Strategy, e.Rank, memoReason(res, e, keep))
 		case e.ScaleEffect && !rec.ScaleEffect && e.Recommended < rec.Recommended:
 			fmt.Fprintf(b, " %s ranks %d although its model is larger (%s): it %s, and a strategy without such a scale effect ranks first whatever the model sizes (mark the law weak on the Study sheet, weak_laws, if it does not matter for this test).",
-				e.Strategy, e.Rank, sweep.Scale(e.Recommended), e.Reason)
+				e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
 		default:
-			fmt.Fprintf(b, " %s ranks %d (%s): %s.", e.Strategy, e.Rank, sweep.Scale(e.Recommended), e.Reason)
+			fmt.Fprintf(b, " %s ranks %d (%s): it %s.", e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
 		}
 	}
 	b.WriteString("\n\n")
 }
 
+// memoReason says in the memo's words why a strategy stands where it does,
+// from the ranking's fields: the failing reason of an infeasible one; the
+// relaxed laws of a feasible one, those that count against it when there
+// are some (RankEntry.ScaleEffect), else those within the threshold, else
+// the weak ones.
+func memoReason(res *sweep.Result, e sweep.RankEntry, keep []string) string {
+	if !e.Feasible {
+		s := "no feasible scale"
+		if why := firstFailing(e.Result); why != "" {
+			s += ": " + proseText(why, keep)
+		}
+		return s
+	}
+	th := HumanNumber(res.Plan.Settings.MismatchThreshold)
+	var counted, within, weak []string
+	for _, r := range e.Relaxed {
+		law := LawLabel(r.Law)
+		switch {
+		case r.Weak:
+			if !slices.Contains(weak, law) {
+				weak = append(weak, law)
+			}
+		case r.Governing:
+			counted = append(counted, fmt.Sprintf("relaxes the %s, which the study marks governing (%s)", law, relaxedWords(r)))
+		case math.IsNaN(r.Ratio):
+			counted = append(counted, fmt.Sprintf("relaxes the %s (%s)", law, relaxedWords(r)))
+		case r.Size() > res.Plan.Settings.MismatchThreshold:
+			counted = append(counted, fmt.Sprintf("relaxes the %s (%s, beyond the threshold %s)", law, relaxedWords(r), th))
+		default:
+			within = append(within, fmt.Sprintf("relaxes the %s (%s, within the threshold %s)", law, relaxedWords(r), th))
+		}
+	}
+	switch {
+	case len(counted) > 0:
+		return strings.Join(counted, "; ")
+	case len(within) > 0:
+		return strings.Join(within, "; ")
+	case len(weak) > 0:
+		return "relaxes only laws the study marks weak (the " + strings.Join(weak, ", the ") + ")"
+	}
+	return "relaxes no law"
+}
+
+// relaxedWords says how the model's group compares with the prototype's:
+// "the model's Reynolds number is 1/34.2 of the prototype's".
+func relaxedWords(r sweep.Relaxed) string {
+	g := r.Group
+	if r.Case != "" {
+		g += " of case " + r.Case
+	}
+	switch {
+	case math.IsNaN(r.Ratio) && len(r.Missing) == 0:
+		return fmt.Sprintf("the %s mismatch cannot be evaluated", g)
+	case math.IsNaN(r.Ratio):
+		missing := make([]string, len(r.Missing))
+		for i, m := range r.Missing {
+			missing[i] = Label(m)
+		}
+		return fmt.Sprintf("the %s mismatch cannot be evaluated: give the %s", g, strings.Join(missing, ", the "))
+	case r.Ratio >= 1:
+		return fmt.Sprintf("the model's %s is 1/%s of the prototype's", g, HumanNumber(r.Ratio))
+	default:
+		return fmt.Sprintf("the model's %s is %s times the prototype's", g, HumanNumber(1/r.Ratio))
+	}
+}
+
+// memoAssumptionLines states, in the memo's words, what a strategy's
+// recommendation assumes (the terminal's AssumptionLines, from the same
+// sweep.Assumptions).
+func memoAssumptionLines(res *sweep.Result, sr *sweep.StrategyResult, keep []string) []string {
+	a := res.Assume(sr)
+	cur := res.Plan.Settings.Currency
+	var out []string
+	if ax := a.Axis; ax != nil {
+		if isFreeChoiceAxis(res.Plan) {
+			out = append(out, fmt.Sprintf("the second axis at a %s scale k = %s (the value that allows the largest model)", Label(ax.Name), HumanNumber(ax.Value)))
+		} else {
+			out = append(out, fmt.Sprintf("the second axis at %s = %s (the value that allows the largest model)", Label(ax.Name), humanWithUnit(ax.Value, axisUnit(res.Plan))))
+		}
+	}
+	if len(a.Fixed) > 0 {
+		var parts []string
+		for _, f := range a.Fixed {
+			parts = append(parts, fmt.Sprintf("%s scale k = %s", Label(f.Quantity), HumanNumber(f.Factor)))
+		}
+		out = append(out, "free choice fixed: "+strings.Join(parts, ", "))
+	}
+	if o := a.Cheapest; o != nil {
+		out = append(out, fmt.Sprintf("the cheapest feasible option over all its combinations is %s with %s, at %s", sweep.Scale(o.Cheapest), Candidate(o), HumanMoney(o.CheapestCost, cur)))
+	}
+	if !math.IsNaN(a.LargerScale) {
+		if len(a.LargerNeeds) > 0 {
+			var parts []string
+			for _, n := range a.LargerNeeds {
+				dir := "at least"
+				if !n.AtLeast {
+					dir = "at most"
+				}
+				parts = append(parts, fmt.Sprintf("the %s to be %s %s (the facility has %s; limit %q)", Label(n.Capability), dir, humanWithUnit(n.Value, n.Unit), humanWithUnit(n.Have, n.Unit), proseText(n.Limit, keep)))
+			}
+			out = append(out, fmt.Sprintf("a larger model (%s) would need %s", sweep.Scale(a.LargerScale), strings.Join(parts, ", ")))
+		} else if a.LargerLimit != "" {
+			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", sweep.Scale(a.LargerScale), proseText(a.LargerLimit, keep)))
+		}
+	}
+	return out
+}
+
 // memoAssumptions states, per strategy with a window, what its best option
 // assumes.
 func memoAssumptions(b *strings.Builder, res *sweep.Result) {
+	keep := userNames(res)
 	var lines []string
 	for _, sr := range res.Strategies {
 		if sr.Best == nil {
 			continue
 		}
-		for _, l := range AssumptionLines(res, sr) {
+		for _, l := range memoAssumptionLines(res, sr, keep) {
 			lines = append(lines, fmt.Sprintf("- %s: %s.\n", md(sr.Name), md(l)))
 		}
 	}
@@ -132,6 +244,14 @@ func memoAssumptions(b *strings.Builder, res *sweep.Result) {
 	for _, l := range lines {
 		b.WriteString(l)
 	}
+}
+
+// humanWithUnit is a value for people with its unit ("9.07 m").
+func humanWithUnit(x float64, unit string) string {
+	if unit == "" || unit == "1" {
+		return HumanNumber(x)
+	}
+	return HumanNumber(x) + " " + unit
 }
 
 func withUnit(x float64, unit string) string {
@@ -192,9 +312,9 @@ func relaxedSentence(m sweep.Relaxed) string {
 		g += " of case " + m.Case
 	}
 	if math.IsNaN(m.Ratio) {
-		return fmt.Sprintf("The %s (law %s relaxed) is not matched; %s.", g, m.Law, m.Words())
+		return fmt.Sprintf("The %s (%s relaxed) is not matched; %s.", g, LawLabel(m.Law), relaxedWords(m))
 	}
-	s := fmt.Sprintf("The %s (law %s relaxed) is not matched: prototype / model = %s.", g, m.Law, Num3(m.Ratio))
+	s := fmt.Sprintf("The %s (%s relaxed) is not matched: prototype / model = %s.", g, LawLabel(m.Law), HumanNumber(m.Ratio))
 	if m.Weak {
 		s += " The study marks the law weak."
 	}
