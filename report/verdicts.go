@@ -109,6 +109,8 @@ func memoWhy(b *strings.Builder, res *sweep.Result) {
 		case e.ScaleEffect && !rec.ScaleEffect && e.Recommended < rec.Recommended:
 			fmt.Fprintf(b, " %s ranks %d although its model is larger (%s): it %s, and a strategy without such a scale effect ranks first whatever the model sizes (mark the law weak on the Study sheet, weak_laws, if it does not matter for this test).",
 				e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
+		case e.ScaleEffect == rec.ScaleEffect && res.Plan.Settings.Recommend != "cheapest" && e.Recommended > rec.Recommended:
+			fmt.Fprintf(b, " %s ranks %d (%s, a smaller model): it %s.", e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
 		default:
 			fmt.Fprintf(b, " %s ranks %d (%s): it %s.", e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
 		}
