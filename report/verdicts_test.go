@@ -46,7 +46,7 @@ func TestMemoSaysWhy(t *testing.T) {
 		{[]string{"weak_laws", "gravity"}, []string{
 			"Use **1 g bin** (dominant) at **1:120**",
 			"It ranks first of 3: it relaxes only laws the study marks weak (the gravity law).",
-			"centrifuge ranks 2 (1:160): it relaxes no law.",
+			"centrifuge ranks 2 (1:160, a smaller model): it relaxes no law.",
 		}},
 	}
 	for _, c := range cases {
