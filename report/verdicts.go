@@ -42,21 +42,49 @@ func AxisText(res *sweep.Result, a sweep.Assumptions) string {
 // second-axis value, the free choices fixed, the cheapest feasible option
 // over all its combinations, and what a larger model would need.
 func AssumptionLines(res *sweep.Result, sr *sweep.StrategyResult) []string {
+	return assumptionLines(res, sr, false)
+}
+
+// assumptionLines says the assumptions of sweep.Assumptions in the
+// terminal's words (identifiers, Num3, Money) or, for the memo, in words
+// for people (labels, HumanNumber, HumanMoney, limit names through
+// proseText with the user's names kept).
+func assumptionLines(res *sweep.Result, sr *sweep.StrategyResult, memo bool) []string {
 	a := res.Assume(sr)
 	cur := res.Plan.Settings.Currency
+	name, num, limit := func(id string) string { return id }, withUnit, func(s string) string { return s }
+	if memo {
+		keep := userNames(res)
+		name, num, limit = Label, humanWithUnit, func(s string) string { return proseText(s, keep) }
+	}
 	var out []string
-	if s := AxisText(res, a); s != "" {
-		out = append(out, "second axis at "+s+" (the value that allows the largest model)")
+	switch {
+	case !memo:
+		if s := AxisText(res, a); s != "" {
+			out = append(out, "second axis at "+s+" (the value that allows the largest model)")
+		}
+	case a.Axis != nil && isFreeChoiceAxis(res.Plan):
+		out = append(out, fmt.Sprintf("the second axis at a %s scale k = %s (the value that allows the largest model)", Label(a.Axis.Name), HumanNumber(a.Axis.Value)))
+	case a.Axis != nil:
+		out = append(out, fmt.Sprintf("the second axis at %s = %s (the value that allows the largest model)", Label(a.Axis.Name), humanWithUnit(a.Axis.Value, axisUnit(res.Plan))))
 	}
 	if len(a.Fixed) > 0 {
 		var parts []string
 		for _, f := range a.Fixed {
-			parts = append(parts, f.Quantity+"="+strconv.FormatFloat(f.Factor, 'g', -1, 64))
+			if memo {
+				parts = append(parts, fmt.Sprintf("%s scale k = %s", Label(f.Quantity), HumanNumber(f.Factor)))
+			} else {
+				parts = append(parts, f.Quantity+"="+strconv.FormatFloat(f.Factor, 'g', -1, 64))
+			}
 		}
 		out = append(out, "free choice fixed: "+strings.Join(parts, ", "))
 	}
 	if o := a.Cheapest; o != nil {
-		out = append(out, fmt.Sprintf("cheapest feasible option over all combinations: %s with %s, %s", sweep.Scale(o.Cheapest), Candidate(o), Money(o.CheapestCost, cur)))
+		if memo {
+			out = append(out, fmt.Sprintf("the cheapest feasible option over all its combinations is %s with %s, at %s", sweep.Scale(o.Cheapest), Candidate(o), HumanMoney(o.CheapestCost, cur)))
+		} else {
+			out = append(out, fmt.Sprintf("cheapest feasible option over all combinations: %s with %s, %s", sweep.Scale(o.Cheapest), Candidate(o), Money(o.CheapestCost, cur)))
+		}
 	}
 	if !math.IsNaN(a.LargerScale) {
 		if len(a.LargerNeeds) > 0 {
@@ -66,11 +94,15 @@ func AssumptionLines(res *sweep.Result, sr *sweep.StrategyResult) []string {
 				if !n.AtLeast {
 					dir = "at most"
 				}
-				parts = append(parts, fmt.Sprintf("%s %s %s (has %s; limit %q)", n.Capability, dir, withUnit(n.Value, n.Unit), withUnit(n.Have, n.Unit), n.Limit))
+				if memo {
+					parts = append(parts, fmt.Sprintf("the %s to be %s %s (the facility has %s; limit %q)", name(n.Capability), dir, num(n.Value, n.Unit), num(n.Have, n.Unit), limit(n.Limit)))
+				} else {
+					parts = append(parts, fmt.Sprintf("%s %s %s (has %s; limit %q)", name(n.Capability), dir, num(n.Value, n.Unit), num(n.Have, n.Unit), limit(n.Limit)))
+				}
 			}
 			out = append(out, fmt.Sprintf("a larger model (%s) would need %s", sweep.Scale(a.LargerScale), strings.Join(parts, ", ")))
 		} else if a.LargerLimit != "" {
-			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", sweep.Scale(a.LargerScale), a.LargerLimit))
+			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", sweep.Scale(a.LargerScale), limit(a.LargerLimit)))
 		}
 	}
 	return out
@@ -184,58 +216,15 @@ func relaxedWords(r sweep.Relaxed) string {
 	}
 }
 
-// memoAssumptionLines states, in the memo's words, what a strategy's
-// recommendation assumes (the terminal's AssumptionLines, from the same
-// sweep.Assumptions).
-func memoAssumptionLines(res *sweep.Result, sr *sweep.StrategyResult, keep []string) []string {
-	a := res.Assume(sr)
-	cur := res.Plan.Settings.Currency
-	var out []string
-	if ax := a.Axis; ax != nil {
-		if isFreeChoiceAxis(res.Plan) {
-			out = append(out, fmt.Sprintf("the second axis at a %s scale k = %s (the value that allows the largest model)", Label(ax.Name), HumanNumber(ax.Value)))
-		} else {
-			out = append(out, fmt.Sprintf("the second axis at %s = %s (the value that allows the largest model)", Label(ax.Name), humanWithUnit(ax.Value, axisUnit(res.Plan))))
-		}
-	}
-	if len(a.Fixed) > 0 {
-		var parts []string
-		for _, f := range a.Fixed {
-			parts = append(parts, fmt.Sprintf("%s scale k = %s", Label(f.Quantity), HumanNumber(f.Factor)))
-		}
-		out = append(out, "free choice fixed: "+strings.Join(parts, ", "))
-	}
-	if o := a.Cheapest; o != nil {
-		out = append(out, fmt.Sprintf("the cheapest feasible option over all its combinations is %s with %s, at %s", sweep.Scale(o.Cheapest), Candidate(o), HumanMoney(o.CheapestCost, cur)))
-	}
-	if !math.IsNaN(a.LargerScale) {
-		if len(a.LargerNeeds) > 0 {
-			var parts []string
-			for _, n := range a.LargerNeeds {
-				dir := "at least"
-				if !n.AtLeast {
-					dir = "at most"
-				}
-				parts = append(parts, fmt.Sprintf("the %s to be %s %s (the facility has %s; limit %q)", Label(n.Capability), dir, humanWithUnit(n.Value, n.Unit), humanWithUnit(n.Have, n.Unit), proseText(n.Limit, keep)))
-			}
-			out = append(out, fmt.Sprintf("a larger model (%s) would need %s", sweep.Scale(a.LargerScale), strings.Join(parts, ", ")))
-		} else if a.LargerLimit != "" {
-			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", sweep.Scale(a.LargerScale), proseText(a.LargerLimit, keep)))
-		}
-	}
-	return out
-}
-
 // memoAssumptions states, per strategy with a window, what its best option
 // assumes.
 func memoAssumptions(b *strings.Builder, res *sweep.Result) {
-	keep := userNames(res)
 	var lines []string
 	for _, sr := range res.Strategies {
 		if sr.Best == nil {
 			continue
 		}
-		for _, l := range memoAssumptionLines(res, sr, keep) {
+		for _, l := range assumptionLines(res, sr, true) {
 			lines = append(lines, fmt.Sprintf("- %s: %s.\n", md(sr.Name), md(l)))
 		}
 	}
