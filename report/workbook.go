@@ -457,7 +457,6 @@ func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *swee
 	rows := 1 + (len(grid)+step-1)/step
 	if step > 1 {
 		rows++ // the note on thinning
-
 	}
 	s, err := newSheetSized(f, name, header, widths, bold, rows, len(header))
 	if err != nil {
