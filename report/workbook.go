@@ -462,31 +462,30 @@ func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *swee
 	if err != nil {
 		return err
 	}
+	// The texts of the limiting limits are made once per combination, not
+	// once per cell.
+	names := make([]limitNames, len(sr.Combos))
+	for ci, c := range sr.Combos {
+		names[ci] = newLimitNames(c)
+	}
+	row := make([]any, 0, len(header))
 	for gi := 0; gi < len(grid); gi += step {
 		if gi/step%rowsPerCheck == 0 {
 			if err := ctx.Err(); err != nil {
 				return err
 			}
 		}
-		row := []any{sweep.Scale(grid[gi]), sig(grid[gi])}
-		for _, c := range sr.Combos {
+		row = append(row[:0], sweep.Scale(grid[gi]), sig(grid[gi]))
+		for ci, c := range sr.Combos {
 			if c.Margins == nil {
 				row = append(row, "", c.Err)
 				continue
 			}
 			m := c.Margins[gi]
-			lim := "similarity condition"
-			if j := c.Limiting[gi]; j >= 0 && j < len(c.Limits) {
-				lim = c.Limits[j].Name
-			} else if j == sweep.LimitingNone {
-				lim = ""
-			}
+			lim := names[ci].of(c.Limiting[gi], m < 0 && !math.IsInf(m, 0))
 			if math.IsInf(m, 0) {
 				row = append(row, "", lim)
 				continue
-			}
-			if m < 0 {
-				lim = "infeasible: " + lim
 			}
 			row = append(row, excelize.Cell{StyleID: bins[marginBin(m)], Value: math.Round(m*1000) / 1000}, lim)
 		}
@@ -685,14 +684,18 @@ func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
 			if len(c.Requirements) == 0 {
 				continue
 			}
+			cols := make([]int, len(c.Requirements))
+			for k, r := range c.Requirements {
+				cols[k] = index[requirementLabel(r)]
+			}
 			for i := 0; i < len(grid); i += step {
 				row := []any{sr.Name, c.Case, Candidate(c), sweep.Scale(grid[i]), sig(grid[i])}
 				vals := make([]any, len(labels))
 				for k := range vals {
 					vals[k] = ""
 				}
-				for _, r := range c.Requirements {
-					vals[index[requirementLabel(r)]] = sig(r.Values[i])
+				for k, r := range c.Requirements {
+					vals[cols[k]] = sig(r.Values[i])
 				}
 				if err := s.add(append(row, vals...)...); err != nil {
 					return err

@@ -13,6 +13,8 @@ import (
 	"strings"
 
 	"github.com/xuri/excelize/v2"
+
+	"scaleplan/sweep"
 )
 
 // zipLevel is the deflate level of the workbook's parts. Level 2 of Go's
@@ -220,4 +222,39 @@ func newSheetSized(f *excelize.File, name string, header []string, widths []floa
 		}
 	}
 	return newSheet(f, name, header, widths, bold)
+}
+
+// limitNames are a combination's texts for the limit that gives a margin
+// in a map sheet, feasible and infeasible.
+type limitNames struct {
+	feasible, infeasible []string // by limit index
+	other, otherBad      string   // the similarity condition
+}
+
+func newLimitNames(c *sweep.ComboResult) limitNames {
+	n := limitNames{other: "similarity condition", otherBad: "infeasible: similarity condition"}
+	for _, l := range c.Limits {
+		n.feasible = append(n.feasible, l.Name)
+		n.infeasible = append(n.infeasible, "infeasible: "+l.Name)
+	}
+	return n
+}
+
+// of names the limit j (sweep.LimitingNone: none) that gives a margin.
+func (n limitNames) of(j int, infeasible bool) string {
+	switch {
+	case j >= 0 && j < len(n.feasible):
+		if infeasible {
+			return n.infeasible[j]
+		}
+		return n.feasible[j]
+	case j == sweep.LimitingNone:
+		if infeasible {
+			return "infeasible: "
+		}
+		return ""
+	case infeasible:
+		return n.otherBad
+	}
+	return n.other
 }
