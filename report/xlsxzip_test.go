@@ -2,14 +2,16 @@ package report_test
 
 import (
 	"archive/zip"
+	"bytes"
 	"context"
-	"io"
+	"os"
 	"regexp"
 	"strconv"
 	"strings"
 	"testing"
 
 	"scaleplan/report"
+	"scaleplan/sweep"
 )
 
 // TestWorkbookArchive checks the archive the workbook is written as, part
@@ -36,55 +38,50 @@ func TestWorkbookArchive(t *testing.T) {
 					book = f
 				}
 			}
-			zr, err := zip.OpenReader(book)
+			data, err := os.ReadFile(book)
 			if err != nil {
 				t.Fatal(err)
 			}
-			defer zr.Close()
-			var names []string
+			zr, err := zip.NewReader(bytes.NewReader(data), int64(len(data)))
+			if err != nil {
+				t.Fatal(err)
+			}
 			pngs := 0
 			for _, f := range zr.File {
-				names = append(names, f.Name)
 				if strings.HasSuffix(f.Name, ".png") {
 					pngs++
 					if f.Method != zip.Store {
 						t.Errorf("%s: method %d, want stored", f.Name, f.Method)
 					}
 				}
-				if !strings.HasPrefix(f.Name, "xl/worksheets/sheet") || !strings.HasSuffix(f.Name, ".xml") {
+			}
+			names := wbZipOrder(t, data)
+			for name, b := range wbZipParts(t, data) {
+				if !strings.HasPrefix(name, "xl/worksheets/sheet") || !strings.HasSuffix(name, ".xml") {
 					continue
-				}
-				r, err := f.Open()
-				if err != nil {
-					t.Fatal(err)
-				}
-				b, err := io.ReadAll(r)
-				r.Close()
-				if err != nil {
-					t.Fatal(err)
 				}
 				// The extent of the cells, by hand: letters are a base-26
 				// column number (A = 1, Z = 26, AA = 27), ECMA-376 §18.3.1.4.
 				maxCol, maxRow := 0, 0
-				for _, m := range cellRE.FindAllSubmatch(b, -1) {
+				for _, m := range cellRE.FindAllStringSubmatch(b, -1) {
 					col := 0
 					for _, ch := range m[1] {
 						col = col*26 + int(ch-'A'+1)
 					}
-					row, _ := strconv.Atoi(string(m[2]))
+					row, _ := strconv.Atoi(m[2])
 					maxCol, maxRow = max(maxCol, col), max(maxRow, row)
 				}
 				want := "A1"
 				if maxCol > 0 && (maxCol > 1 || maxRow > 1) {
-					want = "A1:" + colName(maxCol) + strconv.Itoa(maxRow)
+					want = "A1:" + sweep.ColumnLetters(maxCol) + strconv.Itoa(maxRow)
 				}
-				d := dimRE.FindSubmatch(b)
+				d := dimRE.FindStringSubmatch(b)
 				if d == nil {
-					t.Errorf("%s: no dimension", f.Name)
+					t.Errorf("%s: no dimension", name)
 					continue
 				}
-				if string(d[1]) != want {
-					t.Errorf("%s: declares %s, its cells cover %s", f.Name, d[1], want)
+				if d[1] != want {
+					t.Errorf("%s: declares %s, its cells cover %s", name, d[1], want)
 				}
 			}
 			if pngs == 0 {
@@ -100,15 +97,4 @@ func TestWorkbookArchive(t *testing.T) {
 			}
 		})
 	}
-}
-
-// colName is the letters of a column number (1 = A, 27 = AA).
-func colName(n int) string {
-	s := ""
-	for n > 0 {
-		n--
-		s = string(rune('A'+n%26)) + s
-		n /= 26
-	}
-	return s
 }
