@@ -44,3 +44,20 @@ func syntheticPlan(b testing.TB, points, axis, cands, strats int) *sweep.Plan {
 	}
 	return p
 }
+
+// BenchmarkSyntheticWriteStudy writes every output of the 32-million-point
+// synthetic study (swept once, outside the timing), as `scaleplan run`
+// does: the part of the run a CPU profile of the writers looks at.
+func BenchmarkSyntheticWriteStudy(b *testing.B) {
+	res, err := syntheticPlan(b, 2000, 100, 40, 4).Run(context.Background())
+	if err != nil {
+		b.Fatal(err)
+	}
+	dir := b.TempDir()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if _, err := WriteStudy(context.Background(), dir, res, PlotPNG); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -37,20 +37,21 @@ func memoText(res *sweep.Result, figures []Figure) string {
 		"The length scale was swept from %s to %s.\n\n", sweep.Scale(st.ScaleFrom), sweep.Scale(st.ScaleTo))
 	memoWarnings(b, res)
 
+	keep := userNames(res)
 	b.WriteString("## Strategies compared\n\n")
 	b.WriteString("| strategy (technique) | window | limited by (large / small model) | scale | cost |\n|---|---|---|---|---|\n")
 	for _, sr := range res.Strategies {
 		c := sr.Best
 		if c == nil {
-			fmt.Fprintf(b, "| %s (%s) | none | %s | | |\n", md(sr.Name), Label(sr.Technique), md(firstFailing(sr)))
+			fmt.Fprintf(b, "| %s (%s) | none | %s | | |\n", md(sr.Name), Label(sr.Technique), md(proseText(firstFailing(sr), keep)))
 			continue
 		}
 		large, small := Edges(c.Window)
 		fmt.Fprintf(b, "| %s (%s) | %s | %s / %s | %s | %s |\n", md(sr.Name), Label(sr.Technique), WindowText(c.Window),
-			md(large), md(small), sweep.Scale(c.Recommended), HumanMoney(c.Cost, st.Currency))
+			md(proseText(large, keep)), md(proseText(small, keep)), sweep.Scale(c.Recommended), HumanMoney(c.Cost, st.Currency))
 	}
 	b.WriteString("\n")
-	memoTradeoffs(b, res)
+	memoTradeoffs(b, res, figures)
 
 	rec, recS := recommended(res)
 	b.WriteString("## Recommendation\n\n")
@@ -64,7 +65,7 @@ func memoText(res *sweep.Result, figures []Figure) string {
 			fmt.Fprintf(b, ", a model %s m long", HumanNumber(rec.ModelLength))
 		}
 		fmt.Fprintf(b, ", with %s. The feasible window is %s: the largest model is limited by %s, the smallest by %s.",
-			Candidate(rec), WindowText(rec.Window), large, small)
+			Candidate(rec), WindowText(rec.Window), proseText(large, keep), proseText(small, keep))
 		if !math.IsNaN(rec.Cost) {
 			fmt.Fprintf(b, " The campaign is estimated at %s at this scale", HumanMoney(rec.Cost, st.Currency))
 			if o := res.Assume(recS).Cheapest; o != nil && (o.Cheapest != rec.Recommended || o != rec) {
@@ -112,7 +113,10 @@ func memoText(res *sweep.Result, figures []Figure) string {
 				if len(pv.Matches) == 0 {
 					b.WriteString("  No entry of the library meets it within the study's tolerance.\n")
 				} else {
-					fmt.Fprintf(b, "  Library entries that meet it at the recommended scale: %s.\n", matchList(pv.Quantity, pv.Matches))
+					fmt.Fprintf(b, "  Library entries that meet it at the recommended scale: %s.\n", proseText(matchList(pv.Quantity, pv.Matches), keep))
+				}
+				if s := recipeSentence(pv); s != "" {
+					fmt.Fprintf(b, "  %s\n", proseText(s, keep))
 				}
 			}
 		}
@@ -187,7 +191,7 @@ func limitingCapability(res *sweep.Result, c *sweep.ComboResult) string {
 			continue
 		}
 		s := fmt.Sprintf("**Facility.** The largest model is limited by the %s of %s (limit %q): at %s it needs %s %s, which the facility has.",
-			Label(r.Capability), c.Facility, r.Limit, sweep.Scale(c.Window[0].Lo), HumanNumber(r.Have), r.Unit)
+			Label(r.Capability), c.Facility, proseText(r.Limit, userNames(res)), sweep.Scale(c.Window[0].Lo), HumanNumber(r.Have), r.Unit)
 		if !math.IsNaN(c.AnyFacility) && c.AnyFacility < c.Window[0].Lo {
 			i := nearest(res.Plan.Grid, c.AnyFacility)
 			s += fmt.Sprintf(" A model as large as %s, which the other limits allow, would need %s %s (the other capabilities as they are).",
@@ -195,7 +199,7 @@ func limitingCapability(res *sweep.Result, c *sweep.ComboResult) string {
 		}
 		return s
 	}
-	return fmt.Sprintf("**Facility.** The largest model is limited by %q, not by a capability of %s.", edge, c.Facility)
+	return fmt.Sprintf("**Facility.** The largest model is limited by %q, not by a capability of %s.", proseText(edge, userNames(res)), c.Facility)
 }
 
 // predictionTable writes the prediction rules of a solution for the

@@ -25,6 +25,10 @@ var mapNameRE = regexp.MustCompile(`\.(band|contour|cost|require-.+)-([0-9]+)-[^
 func MemoFigures(res *sweep.Result, maps []string) []Figure {
 	var out []Figure
 	for _, p := range maps {
+		if isTradeoffPlot(p) {
+			out = append(out, Figure{Path: p, Caption: "The strategies side by side: each feasible strategy's recommended scale against its worst relaxed mismatch, labelled with its cost; the non-dominated ones dark and joined, the mismatch threshold dashed."})
+			continue
+		}
 		m := mapNameRE.FindStringSubmatch(filepath.Base(p))
 		if m == nil {
 			continue

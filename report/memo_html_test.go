@@ -79,6 +79,14 @@ func TestMemoHTMLEveryScenario(t *testing.T) {
 			if regexp.MustCompile(`k_[a-z]`).Match(text) {
 				t.Error("the HTML memo shows a scale law with raw symbols (k_…)")
 			}
+			// Tables a document converter keeps whole: at most five columns.
+			for _, line := range strings.Split(string(memo), "\n") {
+				if strings.HasPrefix(line, "|") {
+					if n := strings.Count(strings.ReplaceAll(line, `\|`, ""), "|") - 1; n > 5 {
+						t.Errorf("the Markdown memo has a table of %d columns: %s", n, line)
+					}
+				}
+			}
 			for i, p := range pngs {
 				link := "](" + p + ")"
 				if !bytes.Contains(memo, []byte(link)) {

@@ -96,6 +96,30 @@ func WritePlotsContext(ctx context.Context, dir, base string, res *sweep.Result,
 		return nil, nil
 	}
 	date := pdfDate(res.Plan.Settings.InputsDate)
+	// The strategies' maps are drawn concurrently (plotStrategies); the
+	// trade-off plot, drawn from all of them, follows.
+	files, err := plotStrategies(ctx, res, func(ctx context.Context, i int, sr *sweep.StrategyResult) ([]string, error) {
+		return writeStrategyPlots(ctx, dir, base, format, date, res, i, sr)
+	})
+	if err != nil {
+		return files, err
+	}
+	if rows := TradeoffData(res); rows != nil {
+		if err := ctx.Err(); err != nil {
+			return files, err
+		}
+		f, err := writeTradeoffPlot(dir, base, format, date, res, rows)
+		if err != nil {
+			return files, err
+		}
+		files = append(files, f)
+	}
+	return files, nil
+}
+
+// writeStrategyPlots writes the maps of one strategy, the i-th, in their
+// order: band chart, contour map, cost curve, requirement curves.
+func writeStrategyPlots(ctx context.Context, dir, base, format, date string, res *sweep.Result, i int, sr *sweep.StrategyResult) ([]string, error) {
 	var files []string
 	write := func(kind string, i int, sr *sweep.StrategyResult, w, h vg.Length, draw func(draw.Canvas)) error {
 		if err := ctx.Err(); err != nil {
@@ -116,39 +140,27 @@ func WritePlotsContext(ctx context.Context, dir, base string, res *sweep.Result,
 		files = append(files, path)
 		return nil
 	}
-	for i, sr := range res.Strategies {
-		if bc := BandData(res, sr); len(bc.Rows) > 0 {
-			w, h := bandSize(bc)
-			if err := write("band", i, sr, w, h, func(dc draw.Canvas) { drawBand(dc, res, bc) }); err != nil {
-				return files, err
-			}
-		}
-		if cm := ContourData(res, sr); cm != nil {
-			if err := write("contour", i, sr, plotWidth, contourHeight, func(dc draw.Canvas) { drawContour(dc, res, cm) }); err != nil {
-				return files, err
-			}
-		}
-		if cs := CostData(res, sr); cs != nil {
-			if err := write("cost", i, sr, plotWidth, costHeight, func(dc draw.Canvas) { drawCost(dc, res, cs) }); err != nil {
-				return files, err
-			}
-		}
-		for _, rs := range RequirementData(res, sr) {
-			kind := requireKind(rs)
-			if err := write(kind, i, sr, plotWidth, requirementHeight, func(dc draw.Canvas) { drawRequirement(dc, res, rs) }); err != nil {
-				return files, err
-			}
+	if bc := BandData(res, sr); len(bc.Rows) > 0 {
+		w, h := bandSize(bc)
+		if err := write("band", i, sr, w, h, func(dc draw.Canvas) { drawBand(dc, res, bc) }); err != nil {
+			return files, err
 		}
 	}
-	if rows := TradeoffData(res); rows != nil {
-		if err := ctx.Err(); err != nil {
+	if cm := ContourData(res, sr); cm != nil {
+		if err := write("contour", i, sr, plotWidth, contourHeight, func(dc draw.Canvas) { drawContour(dc, res, cm) }); err != nil {
 			return files, err
 		}
-		f, err := writeTradeoffPlot(dir, base, format, date, res, rows)
-		if err != nil {
+	}
+	if cs := CostData(res, sr); cs != nil {
+		if err := write("cost", i, sr, plotWidth, costHeight, func(dc draw.Canvas) { drawCost(dc, res, cs) }); err != nil {
 			return files, err
 		}
-		files = append(files, f)
+	}
+	for _, rs := range RequirementData(res, sr) {
+		kind := requireKind(rs)
+		if err := write(kind, i, sr, plotWidth, requirementHeight, func(dc draw.Canvas) { drawRequirement(dc, res, rs) }); err != nil {
+			return files, err
+		}
 	}
 	return files, nil
 }
@@ -170,7 +182,11 @@ func renderPlot(format string, w, h vg.Length, date string, drawFn func(draw.Can
 	case PlotPDF:
 		c = newPDFCanvas(w, h, pdfTime(date))
 	default:
-		c = vgimg.PngCanvas{Canvas: vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(plotDPI))}
+		img := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(plotDPI))
+		dc := draw.New(img)
+		dc.FillPolygon(color.White, rectPoints(dc.Rectangle))
+		drawFn(dc)
+		return encodePNG(img.Image())
 	}
 	dc := draw.New(c)
 	dc.FillPolygon(color.White, rectPoints(dc.Rectangle))

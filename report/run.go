@@ -92,6 +92,9 @@ func WriteRunText(w io.Writer, res *sweep.Result) error {
 			sweep.Scale(c.Recommended), length, Money(c.Cost, st.Currency), Candidate(c))
 	}
 	tw.Flush()
+	for _, l := range recipeLines(res) {
+		b.WriteString(l + "\n")
+	}
 	runTextVerdicts(b, res)
 	b.WriteString("A planning aid: scale effects remain; the test plan rests with qualified engineers, facility rules and codes.\n")
 	_, err := io.WriteString(w, b.String())

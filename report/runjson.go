@@ -39,6 +39,7 @@ type strategyJSON struct {
 	Relaxed   []relaxedJSON `json:"relaxed"`
 	Fixed     []fixedJSON   `json:"fixed"`
 	Best      *comboJSON    `json:"best"`
+	Unmet     []unmetJSON   `json:"unmet,omitempty"`
 }
 
 type relaxedJSON struct {
@@ -81,10 +82,12 @@ type intervalJSON struct {
 }
 
 type requiredJSON struct {
-	Quantity      string      `json:"quantity"`
-	Unit          string      `json:"unit"`
-	AtRecommended *float64    `json:"at_recommended"`
-	Matches       []matchJSON `json:"matches"`
+	Quantity      string       `json:"quantity"`
+	Unit          string       `json:"unit"`
+	AtRecommended *float64     `json:"at_recommended"`
+	Matches       []matchJSON  `json:"matches"`
+	Recipe        *recipeJSON  `json:"recipe"`
+	Recipes       []recipeJSON `json:"recipes"`
 }
 
 type matchJSON struct {
@@ -196,7 +199,9 @@ func RunData(res *sweep.Result, outputs []string) any {
 				cj.RobustWindow = windowJSON(c.Robust.Window)
 			}
 			for _, pv := range c.Required {
-				cj.Required = append(cj.Required, requiredJSON{Quantity: pv.Quantity, Unit: unitOf(pv.Quantity), AtRecommended: optional(pv.AtRecommended), Matches: matchesJSON(pv)})
+				rj := requiredJSON{Quantity: pv.Quantity, Unit: unitOf(pv.Quantity), AtRecommended: optional(pv.AtRecommended), Matches: matchesJSON(pv)}
+				rj.Recipes, rj.Recipe = recipesJSON(pv)
+				cj.Required = append(cj.Required, rj)
 			}
 			if o := a.Cheapest; o != nil {
 				cj.CheapestOption = &optionJSON{Medium: o.Medium, Material: o.Material, Facility: o.Facility, KL: Round(o.Cheapest), Scale: sweep.Scale(o.Cheapest), Cost: Round(o.CheapestCost)}
@@ -209,8 +214,13 @@ func RunData(res *sweep.Result, outputs []string) any {
 				cj.LargerModel = l
 			}
 			s.Best = cj
-		} else if s.Reason == "" {
-			s.Reason = firstFailing(sr)
+		} else {
+			if s.Reason == "" {
+				s.Reason = firstFailing(sr)
+			}
+			if u := unmetsJSON(sr); len(u) > 0 {
+				s.Unmet = u
+			}
 		}
 		out.Strategies = append(out.Strategies, s)
 	}

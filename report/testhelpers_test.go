@@ -209,6 +209,9 @@ func wbCombos(sr *sweep.StrategyResult) []*sweep.ComboResult {
 //     fluid 1:36 relaxes nothing; dynamic loading only 1:36 relaxes
 //     consolidation (time factor off by kL = 36, beyond the threshold), so
 //     the viscous pore fluid ranks first at the same model size.
+//   - slurry-pipe: one strategy, Froude and Reynolds kept (nothing
+//     relaxed); its water–glycerol candidate is tuned at every scale, so
+//     the largest loop bore (0.5 m / 0.2 m) sets 1:2.5.
 var wbRecommended = map[string]string{
 	"harbour-tug":    "Froude scaling",
 	"sloped-pier":    "distorted thickness",
@@ -218,4 +221,5 @@ var wbRecommended = map[string]string{
 	"pontoon-bridge": "segmented with backbone",
 	"tidal-estuary":  "distorted",
 	"storm-caisson":  "viscous pore fluid",
+	"slurry-pipe":    "Froude and Reynolds",
 }

@@ -71,8 +71,8 @@ func TradeoffData(res *sweep.Result) []TradeoffRow {
 	return rows
 }
 
-// MismatchText names a strategy's worst relaxed mismatch: "gravity
-// (Froude number) π_p/π_m = 0.0913", or "none".
+// MismatchText names a strategy's worst relaxed mismatch, for people:
+// "Froude number (gravity law), π_p/π_m = 0.0913", or "none".
 func MismatchText(e sweep.RankEntry) string {
 	w := e.WorstMismatch
 	if w == nil {
@@ -82,9 +82,9 @@ func MismatchText(e sweep.RankEntry) string {
 		return "none"
 	}
 	if math.IsNaN(w.Ratio) {
-		return fmt.Sprintf("%s (%s): not evaluated", w.Law, w.Group)
+		return fmt.Sprintf("%s (%s): not evaluated", w.Group, LawLabel(w.Law))
 	}
-	return fmt.Sprintf("%s (%s) π_p/π_m = %s", w.Law, w.Group, Num3(w.Ratio))
+	return fmt.Sprintf("%s (%s), π_p/π_m = %s", w.Group, LawLabel(w.Law), HumanNumber(w.Ratio))
 }
 
 func yesNo(b bool) string {
@@ -138,8 +138,10 @@ func writeTradeoffs(f *excelize.File, res *sweep.Result, bold int) error {
 	return s.close(false)
 }
 
-// memoTradeoffs writes the trade-off table of the memo.
-func memoTradeoffs(b *strings.Builder, res *sweep.Result) {
+// memoTradeoffs writes the trade-off table of the memo: five short
+// columns (a document converter keeps them whole), the reasons as a list
+// below, and a pointer to the trade-off figure when there is one.
+func memoTradeoffs(b *strings.Builder, res *sweep.Result, figures []Figure) {
 	rows := TradeoffData(res)
 	if rows == nil {
 		return
@@ -147,22 +149,40 @@ func memoTradeoffs(b *strings.Builder, res *sweep.Result) {
 	st := res.Plan.Settings
 	b.WriteString("## Trade-offs\n\n")
 	fmt.Fprintf(b, "Strategies ranked by scale effect first, then by model size%s. A relaxed law counts as a scale effect when its group is off by more than a factor %s, or when the study marks it governing; laws marked weak never count.\n\n",
-		map[bool]string{true: " (then cost: the study asks for the cheapest)", false: ""}[st.Recommend == "cheapest"], Num3(st.MismatchThreshold))
-	b.WriteString("| rank | strategy | feasible | scale | model length | cost | worst relaxed mismatch | reason |\n|---|---|---|---|---|---|---|---|\n")
+		map[bool]string{true: " (then cost: the study asks for the cheapest)", false: ""}[st.Recommend == "cheapest"], HumanNumber(st.MismatchThreshold))
+	b.WriteString("| rank | strategy | model | cost | worst relaxed mismatch |\n|---|---|---|---|---|\n")
 	for _, r := range rows {
 		e := r.Entry
-		length := "-"
-		if !math.IsNaN(e.ModelLength) {
-			length = Num3(e.ModelLength) + " m"
-		}
 		name := md(e.Strategy)
 		if r.NonDominated {
 			name += " ◆"
 		}
-		fmt.Fprintf(b, "| %d | %s | %s | %s | %s | %s | %s | %s |\n", e.Rank, name, yesNo(e.Feasible), sweep.Scale(e.Recommended), length,
-			Money(e.Cost, st.Currency), md(MismatchText(e)), md(e.Reason))
+		model, mismatch := "none", "–"
+		if e.Feasible {
+			model = sweep.Scale(e.Recommended)
+			if !math.IsNaN(e.ModelLength) {
+				model += ", " + HumanNumber(e.ModelLength) + " m long"
+			}
+			mismatch = md(MismatchText(e))
+		}
+		fmt.Fprintf(b, "| %d | %s | %s | %s | %s |\n", e.Rank, name, model, HumanMoney(e.Cost, st.Currency), mismatch)
 	}
 	b.WriteString("\n◆ non-dominated: no other feasible strategy gives a model at least as large with a mismatch no worse.\n\n")
+	keep := userNames(res)
+	for _, r := range rows {
+		fmt.Fprintf(b, "- Rank %d, %s: %s.\n", r.Entry.Rank, md(r.Entry.Strategy), md(memoReason(res, r.Entry, keep)))
+	}
+	b.WriteString("\n")
+	for i, f := range figures {
+		if isTradeoffPlot(f.Path) {
+			fmt.Fprintf(b, "Figure %d draws the feasible strategies side by side: recommended scale against worst relaxed mismatch.\n\n", i+1)
+		}
+	}
+}
+
+// isTradeoffPlot reports whether a map file is a study's trade-off plot.
+func isTradeoffPlot(path string) bool {
+	return strings.HasSuffix(strings.TrimSuffix(filepath.Base(path), filepath.Ext(path)), ".tradeoffs")
 }
 
 // TradeoffPlotName is the file name of a study's trade-off plot.

@@ -5,6 +5,7 @@ import (
 
 	"github.com/xuri/excelize/v2"
 	"math"
+	"slices"
 	"strconv"
 	"strings"
 
@@ -41,21 +42,49 @@ func AxisText(res *sweep.Result, a sweep.Assumptions) string {
 // second-axis value, the free choices fixed, the cheapest feasible option
 // over all its combinations, and what a larger model would need.
 func AssumptionLines(res *sweep.Result, sr *sweep.StrategyResult) []string {
+	return assumptionLines(res, sr, false)
+}
+
+// assumptionLines says the assumptions of sweep.Assumptions in the
+// terminal's words (identifiers, Num3, Money) or, for the memo, in words
+// for people (labels, HumanNumber, HumanMoney, limit names through
+// proseText with the user's names kept).
+func assumptionLines(res *sweep.Result, sr *sweep.StrategyResult, memo bool) []string {
 	a := res.Assume(sr)
 	cur := res.Plan.Settings.Currency
+	name, num, limit := func(id string) string { return id }, withUnit, func(s string) string { return s }
+	if memo {
+		keep := userNames(res)
+		name, num, limit = Label, humanWithUnit, func(s string) string { return proseText(s, keep) }
+	}
 	var out []string
-	if s := AxisText(res, a); s != "" {
-		out = append(out, "second axis at "+s+" (the value that allows the largest model)")
+	switch {
+	case !memo:
+		if s := AxisText(res, a); s != "" {
+			out = append(out, "second axis at "+s+" (the value that allows the largest model)")
+		}
+	case a.Axis != nil && isFreeChoiceAxis(res.Plan):
+		out = append(out, fmt.Sprintf("the second axis at a %s scale k = %s (the value that allows the largest model)", Label(a.Axis.Name), HumanNumber(a.Axis.Value)))
+	case a.Axis != nil:
+		out = append(out, fmt.Sprintf("the second axis at %s = %s (the value that allows the largest model)", Label(a.Axis.Name), humanWithUnit(a.Axis.Value, axisUnit(res.Plan))))
 	}
 	if len(a.Fixed) > 0 {
 		var parts []string
 		for _, f := range a.Fixed {
-			parts = append(parts, f.Quantity+"="+strconv.FormatFloat(f.Factor, 'g', -1, 64))
+			if memo {
+				parts = append(parts, fmt.Sprintf("%s scale k = %s", Label(f.Quantity), HumanNumber(f.Factor)))
+			} else {
+				parts = append(parts, f.Quantity+"="+strconv.FormatFloat(f.Factor, 'g', -1, 64))
+			}
 		}
 		out = append(out, "free choice fixed: "+strings.Join(parts, ", "))
 	}
 	if o := a.Cheapest; o != nil {
-		out = append(out, fmt.Sprintf("cheapest feasible option over all combinations: %s with %s, %s", sweep.Scale(o.Cheapest), Candidate(o), Money(o.CheapestCost, cur)))
+		if memo {
+			out = append(out, fmt.Sprintf("the cheapest feasible option over all its combinations is %s with %s, at %s", sweep.Scale(o.Cheapest), Candidate(o), HumanMoney(o.CheapestCost, cur)))
+		} else {
+			out = append(out, fmt.Sprintf("cheapest feasible option over all combinations: %s with %s, %s", sweep.Scale(o.Cheapest), Candidate(o), Money(o.CheapestCost, cur)))
+		}
 	}
 	if !math.IsNaN(a.LargerScale) {
 		if len(a.LargerNeeds) > 0 {
@@ -65,25 +94,30 @@ func AssumptionLines(res *sweep.Result, sr *sweep.StrategyResult) []string {
 				if !n.AtLeast {
 					dir = "at most"
 				}
-				parts = append(parts, fmt.Sprintf("%s %s %s (has %s; limit %q)", n.Capability, dir, withUnit(n.Value, n.Unit), withUnit(n.Have, n.Unit), n.Limit))
+				if memo {
+					parts = append(parts, fmt.Sprintf("the %s to be %s %s (the facility has %s; limit %q)", name(n.Capability), dir, num(n.Value, n.Unit), num(n.Have, n.Unit), limit(n.Limit)))
+				} else {
+					parts = append(parts, fmt.Sprintf("%s %s %s (has %s; limit %q)", name(n.Capability), dir, num(n.Value, n.Unit), num(n.Have, n.Unit), limit(n.Limit)))
+				}
 			}
 			out = append(out, fmt.Sprintf("a larger model (%s) would need %s", sweep.Scale(a.LargerScale), strings.Join(parts, ", ")))
 		} else if a.LargerLimit != "" {
-			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", sweep.Scale(a.LargerScale), a.LargerLimit))
+			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", sweep.Scale(a.LargerScale), limit(a.LargerLimit)))
 		}
 	}
 	return out
 }
 
-// memoWarnings lists the study's warnings.
+// memoWarnings lists the study's warnings, in the memo's words.
 func memoWarnings(b *strings.Builder, res *sweep.Result) {
 	lines := WarningLines(res)
 	if len(lines) == 0 {
 		return
 	}
+	keep := userNames(res)
 	fmt.Fprintf(b, "## Warnings (%d)\n\n", len(lines))
 	for _, l := range lines {
-		fmt.Fprintf(b, "- %s\n", md(l))
+		fmt.Fprintf(b, "- %s\n", md(proseText(l, keep)))
 	}
 	b.WriteString("\n")
 }
@@ -95,22 +129,91 @@ func memoWhy(b *strings.Builder, res *sweep.Result) {
 	if rec == nil {
 		return
 	}
-	fmt.Fprintf(b, "**Why this strategy.** It ranks first of %d: it %s.", len(res.Ranking), rec.Reason)
+	keep := userNames(res)
+	fmt.Fprintf(b, "**Why this strategy.** It ranks first of %d: it %s.", len(res.Ranking), memoReason(res, *rec, keep))
 	for _, e := range res.Ranking {
 		if e.Strategy == rec.Strategy {
 			continue
 		}
 		switch {
 		case !e.Feasible:
-			fmt.Fprintf(b, " %s ranks %d: %s.", e.Strategy, e.Rank, e.Reason)
+			fmt.Fprintf(b, " %s ranks %d: %s.", e.Strategy, e.Rank, memoReason(res, e, keep))
 		case e.ScaleEffect && !rec.ScaleEffect && e.Recommended < rec.Recommended:
 			fmt.Fprintf(b, " %s ranks %d although its model is larger (%s): it %s, and a strategy without such a scale effect ranks first whatever the model sizes (mark the law weak on the Study sheet, weak_laws, if it does not matter for this test).",
-				e.Strategy, e.Rank, sweep.Scale(e.Recommended), e.Reason)
+				e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
+		case e.ScaleEffect == rec.ScaleEffect && res.Plan.Settings.Recommend != "cheapest" && e.Recommended > rec.Recommended:
+			fmt.Fprintf(b, " %s ranks %d (%s, a smaller model): it %s.", e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
 		default:
-			fmt.Fprintf(b, " %s ranks %d (%s): %s.", e.Strategy, e.Rank, sweep.Scale(e.Recommended), e.Reason)
+			fmt.Fprintf(b, " %s ranks %d (%s): it %s.", e.Strategy, e.Rank, sweep.Scale(e.Recommended), memoReason(res, e, keep))
 		}
 	}
 	b.WriteString("\n\n")
+}
+
+// memoReason says in the memo's words why a strategy stands where it does,
+// from the ranking's fields: the failing reason of an infeasible one; the
+// relaxed laws of a feasible one, those that count against it when there
+// are some (RankEntry.ScaleEffect), else those within the threshold, else
+// the weak ones.
+func memoReason(res *sweep.Result, e sweep.RankEntry, keep []string) string {
+	if !e.Feasible {
+		s := "no feasible scale"
+		if why := firstFailing(e.Result); why != "" {
+			s += ": " + proseText(why, keep)
+		}
+		return s
+	}
+	th := HumanNumber(res.Plan.Settings.MismatchThreshold)
+	var counted, within, weak []string
+	for _, r := range e.Relaxed {
+		law := LawLabel(r.Law)
+		switch {
+		case r.Weak:
+			if !slices.Contains(weak, law) {
+				weak = append(weak, law)
+			}
+		case r.Governing:
+			counted = append(counted, fmt.Sprintf("relaxes the %s, which the study marks governing (%s)", law, relaxedWords(r)))
+		case math.IsNaN(r.Ratio):
+			counted = append(counted, fmt.Sprintf("relaxes the %s (%s)", law, relaxedWords(r)))
+		case r.Size() > res.Plan.Settings.MismatchThreshold:
+			counted = append(counted, fmt.Sprintf("relaxes the %s (%s, beyond the threshold %s)", law, relaxedWords(r), th))
+		default:
+			within = append(within, fmt.Sprintf("relaxes the %s (%s, within the threshold %s)", law, relaxedWords(r), th))
+		}
+	}
+	switch {
+	case len(counted) > 0:
+		return strings.Join(counted, "; ")
+	case len(within) > 0:
+		return strings.Join(within, "; ")
+	case len(weak) > 0:
+		return "relaxes only laws the study marks weak (the " + strings.Join(weak, ", the ") + ")"
+	}
+	return "relaxes no law"
+}
+
+// relaxedWords says how the model's group compares with the prototype's:
+// "the model's Reynolds number is 1/34.2 of the prototype's".
+func relaxedWords(r sweep.Relaxed) string {
+	g := r.Group
+	if r.Case != "" {
+		g += " of case " + r.Case
+	}
+	switch {
+	case math.IsNaN(r.Ratio) && len(r.Missing) == 0:
+		return fmt.Sprintf("the %s mismatch cannot be evaluated", g)
+	case math.IsNaN(r.Ratio):
+		missing := make([]string, len(r.Missing))
+		for i, m := range r.Missing {
+			missing[i] = Label(m)
+		}
+		return fmt.Sprintf("the %s mismatch cannot be evaluated: give the %s", g, strings.Join(missing, ", the "))
+	case r.Ratio >= 1:
+		return fmt.Sprintf("the model's %s is 1/%s of the prototype's", g, HumanNumber(r.Ratio))
+	default:
+		return fmt.Sprintf("the model's %s is %s times the prototype's", g, HumanNumber(1/r.Ratio))
+	}
 }
 
 // memoAssumptions states, per strategy with a window, what its best option
@@ -121,7 +224,7 @@ func memoAssumptions(b *strings.Builder, res *sweep.Result) {
 		if sr.Best == nil {
 			continue
 		}
-		for _, l := range AssumptionLines(res, sr) {
+		for _, l := range assumptionLines(res, sr, true) {
 			lines = append(lines, fmt.Sprintf("- %s: %s.\n", md(sr.Name), md(l)))
 		}
 	}
@@ -132,6 +235,14 @@ func memoAssumptions(b *strings.Builder, res *sweep.Result) {
 	for _, l := range lines {
 		b.WriteString(l)
 	}
+}
+
+// humanWithUnit is a value for people with its unit ("9.07 m").
+func humanWithUnit(x float64, unit string) string {
+	if unit == "" || unit == "1" {
+		return HumanNumber(x)
+	}
+	return HumanNumber(x) + " " + unit
 }
 
 func withUnit(x float64, unit string) string {
@@ -192,9 +303,9 @@ func relaxedSentence(m sweep.Relaxed) string {
 		g += " of case " + m.Case
 	}
 	if math.IsNaN(m.Ratio) {
-		return fmt.Sprintf("The %s (law %s relaxed) is not matched; %s.", g, m.Law, m.Words())
+		return fmt.Sprintf("The %s (%s relaxed) is not matched; %s.", g, LawLabel(m.Law), relaxedWords(m))
 	}
-	s := fmt.Sprintf("The %s (law %s relaxed) is not matched: prototype / model = %s.", g, m.Law, Num3(m.Ratio))
+	s := fmt.Sprintf("The %s (%s relaxed) is not matched: prototype / model = %s.", g, LawLabel(m.Law), HumanNumber(m.Ratio))
 	if m.Weak {
 		s += " The study marks the law weak."
 	}

@@ -40,13 +40,14 @@ func TestMemoSaysWhy(t *testing.T) {
 		{nil, []string{
 			"Use **centrifuge** (simulated) at **1:160**",
 			"**Why this strategy.** It ranks first of 3: it relaxes no law.",
-			"1 g bin ranks 2 although its model is larger (1:120): it relaxes gravity: model Froude number 11 times the prototype's, beyond the threshold 10, and a strategy without such a scale effect ranks first whatever the model sizes",
+			// √120 ≈ 11: the Froude number's mismatch at 1:120 in 1 g.
+			"1 g bin ranks 2 although its model is larger (1:120): it relaxes the gravity law (the model's Froude number is 11 times the prototype's, beyond the threshold 10), and a strategy without such a scale effect ranks first whatever the model sizes",
 			"full similarity at 1 g ranks 3: no feasible scale",
 		}},
 		{[]string{"weak_laws", "gravity"}, []string{
 			"Use **1 g bin** (dominant) at **1:120**",
-			"It ranks first of 3: it relaxes only laws the study marks weak (gravity).",
-			"centrifuge ranks 2 (1:160): relaxes no law.",
+			"It ranks first of 3: it relaxes only laws the study marks weak (the gravity law).",
+			"centrifuge ranks 2 (1:160, a smaller model): it relaxes no law.",
 		}},
 	}
 	for _, c := range cases {
@@ -59,26 +60,42 @@ func TestMemoSaysWhy(t *testing.T) {
 	}
 }
 
+// TestMemoTradeoffTable: the memo's trade-off table has five short
+// columns (a document converter keeps them whole); each strategy's reason
+// is a list item below it, with the hand-worked mismatch.
 func TestMemoTradeoffTable(t *testing.T) {
-	rows := wbMemoTable(wbMemoSection(t, report.Memo(anchorRun(t)), "Trade-offs"))
+	sec := wbMemoSection(t, report.Memo(anchorRun(t)), "Trade-offs")
+	rows := wbMemoTable(sec)
 	want := [][]string{
-		{"1", "centrifuge ◆", "yes", "1:160", "0.075 m", "9000 EUR", "none", "relaxes no law"},
-		{"2", "1 g bin ◆", "yes", "1:120", "0.1 m", "1500 EUR"},
-		{"3", "full similarity at 1 g", "no", "-", "-", "-", ""},
+		{"1", "centrifuge ◆", "1:160, 0.075 m long", "9,000 EUR", "none"},
+		{"2", "1 g bin ◆", "1:120, 0.1 m long", "1,500 EUR"},
+		{"3", "full similarity at 1 g", "none", "–", "–"},
 	}
 	if len(rows) != len(want) {
 		t.Fatalf("rows %q", rows)
 	}
 	for i, w := range want {
+		if len(rows[i]) > 5 {
+			t.Errorf("row %d has %d columns, at most 5 wanted", i+1, len(rows[i]))
+		}
 		for j, cell := range w {
-			if rows[i][j] != cell {
+			if j < len(rows[i]) && rows[i][j] != cell {
 				t.Errorf("row %d cell %d: %q, want %q", i+1, j+1, rows[i][j], cell)
 			}
 		}
 	}
 	// π_p/π_m = 1/√120 (sweep/rank_test.go), printed to three figures.
-	if got := rows[1][6]; got != "gravity (Froude number) π_p/π_m = 0.0913" {
+	if got := rows[1][4]; got != "Froude number (gravity law), π_p/π_m = 0.0913" {
 		t.Errorf("worst mismatch %q", got)
+	}
+	for _, reason := range []string{
+		"- Rank 1, centrifuge: relaxes no law.",
+		"- Rank 2, 1 g bin: relaxes the gravity law (the model's Froude number is 11 times the prototype's, beyond the threshold 10).",
+		"- Rank 3, full similarity at 1 g: no feasible scale",
+	} {
+		if !strings.Contains(sec, reason) {
+			t.Errorf("the trade-off section lacks %q:\n%s", reason, sec)
+		}
 	}
 }
 

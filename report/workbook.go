@@ -1,7 +1,6 @@
 package report
 
 import (
-	"archive/zip"
 	"bytes"
 	"context"
 	"fmt"
@@ -200,52 +199,16 @@ func writeWorkbook(ctx context.Context, w io.Writer, res *sweep.Result, maps ...
 	if err := ctx.Err(); err != nil {
 		return err
 	}
-	var buf bytes.Buffer
-	if err := f.Write(&buf); err != nil {
-		return err
-	}
-	return sortedZip(w, buf.Bytes())
-}
-
-// sortedZip copies a zip archive with its entries in name order. The
-// spreadsheet library writes streamed sheets in map order; sorting makes
-// the same result give a byte-identical file.
-func sortedZip(w io.Writer, b []byte) error {
-	zr, err := zip.NewReader(bytes.NewReader(b), int64(len(b)))
-	if err != nil {
-		return err
-	}
-	files := append([]*zip.File(nil), zr.File...)
-	sort.SliceStable(files, func(i, j int) bool { return zipOrder(files[i].Name) < zipOrder(files[j].Name) })
-	zw := zip.NewWriter(w)
-	for _, f := range files {
-		if f.Name == "[Content_Types].xml" {
-			if err := copySortedTypes(zw, f); err != nil {
-				return err
-			}
-			continue
-		}
-		if sheetPartRE.MatchString(f.Name) {
-			if err := copyFixedSheet(zw, f); err != nil {
-				return err
-			}
-			continue
-		}
-		if err := zw.Copy(f); err != nil {
-			return err
-		}
-	}
-	return zw.Close()
+	// The archive is written straight to w, parts compressed once, in name
+	// order (see xlsxZip).
+	f.SetZipWriter(func(io.Writer) excelize.ZipWriter { return newXLSXZip(w) })
+	return f.Write(io.Discard)
 }
 
 var defaultType = regexp.MustCompile(`<Default [^>]*>(</Default>)?`)
 
-// copySortedTypes writes the content-types part with its Default entries
-// sorted: the spreadsheet library lists image types in map order.
-func copySortedTypes(zw *zip.Writer, f *zip.File) error { return rewriteEntry(zw, f, sortDefaults) }
-
 // sortDefaults sorts the contiguous Default entries of a content-types
-// part.
+// part: the spreadsheet library lists image types in map order.
 func sortDefaults(b []byte) []byte {
 	locs := defaultType.FindAllIndex(b, -1)
 	if len(locs) > 1 {
@@ -365,6 +328,10 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 		"recommended (1:x)", "recommended kL [-]", "model length [m]", "cost [" + res.Plan.Settings.Currency + "]",
 		"cheapest kL [-]", "required and measured at recommended scale (model values, SI unless stated)", "relaxed groups π_p/π_m", "notes", "robust window (1:x)", "robust: input that matters most"}
 	widths := []float64{22, 16, 14, 16, 16, 18, 12, 22, 11, 11, 26, 26, 14, 12, 12, 12, 12, 40, 40, 60}
+	recipeQs := recipeQuantities(res)
+	for _, q := range recipeQs {
+		header = append(header, "recipe per scale band: "+q)
+	}
 	s, err := newSheet(f, "Windows", header, widths, bold)
 	if err != nil {
 		return err
@@ -407,10 +374,14 @@ func writeWindows(f *excelize.File, res *sweep.Result, bold int) error {
 			if c.Friction != nil {
 				notes = append(notes, fmt.Sprintf("ITTC-1957: C_F model %.4g, ship %.4g, ΔC_F %.4g", c.Friction.CFModel, c.Friction.CFProto, c.Friction.Delta))
 			}
-			if err := s.add(c.Strategy, c.Case, c.Technique, c.Medium, c.Material, c.Facility, sig(c.Axis),
+			cells := []any{c.Strategy, c.Case, c.Technique, c.Medium, c.Material, c.Facility, sig(c.Axis),
 				WindowText(c.Window), sig(lo), sig(hi), large, small, sweep.Scale(c.Recommended), sig(c.Recommended),
 				sig(c.ModelLength), money(c.Cost), sig(c.Cheapest), strings.Join(req, "; "), strings.Join(mm, "; "),
-				strings.Join(notes, "; "), RobustText(c), robustInput(c)); err != nil {
+				strings.Join(notes, "; "), RobustText(c), robustInput(c)}
+			for _, q := range recipeQs {
+				cells = append(cells, recipeCell(c, q))
+			}
+			if err := s.add(cells...); err != nil {
 				return err
 			}
 		}
@@ -487,39 +458,42 @@ func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *swee
 		widths = append(widths, 16, 26)
 	}
 	name := mapSheetName(i, sr.Name)
-	s, err := newSheet(f, name, header, widths, bold)
-	if err != nil {
-		return err
-	}
 	step := 1
 	if len(grid)+2 > MaxSheetRows {
 		step = (len(grid) + MaxSheetRows - 3) / (MaxSheetRows - 3)
 	}
+	rows := 1 + (len(grid)+step-1)/step
+	if step > 1 {
+		rows++ // the note on thinning
+	}
+	s, err := newSheetSized(f, name, header, widths, bold, rows, len(header))
+	if err != nil {
+		return err
+	}
+	// The texts of the limiting limits are made once per combination, not
+	// once per cell.
+	names := make([]limitNames, len(sr.Combos))
+	for ci, c := range sr.Combos {
+		names[ci] = newLimitNames(c)
+	}
+	row := make([]any, 0, len(header))
 	for gi := 0; gi < len(grid); gi += step {
 		if gi/step%rowsPerCheck == 0 {
 			if err := ctx.Err(); err != nil {
 				return err
 			}
 		}
-		row := []any{sweep.Scale(grid[gi]), sig(grid[gi])}
-		for _, c := range sr.Combos {
+		row = append(row[:0], sweep.Scale(grid[gi]), sig(grid[gi]))
+		for ci, c := range sr.Combos {
 			if c.Margins == nil {
 				row = append(row, "", c.Err)
 				continue
 			}
 			m := c.Margins[gi]
-			lim := "similarity condition"
-			if j := c.Limiting[gi]; j >= 0 && j < len(c.Limits) {
-				lim = c.Limits[j].Name
-			} else if j == sweep.LimitingNone {
-				lim = ""
-			}
+			lim := names[ci].of(c.Limiting[gi], m < 0 && !math.IsInf(m, 0))
 			if math.IsInf(m, 0) {
 				row = append(row, "", lim)
 				continue
-			}
-			if m < 0 {
-				lim = "infeasible: " + lim
 			}
 			row = append(row, excelize.Cell{StyleID: bins[marginBin(m)], Value: math.Round(m*1000) / 1000}, lim)
 		}
@@ -599,16 +573,28 @@ func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
 	for range labels {
 		widths = append(widths, 22)
 	}
-	s, err := newSheet(f, "Requirements", header, widths, bold)
+	grid := res.Plan.Grid
+	step := max(1, len(grid)/200)
+	rows := 1
+	for _, sr := range res.Strategies {
+		for _, c := range sr.Combos {
+			if len(c.Requirements) > 0 {
+				rows += (len(grid) + step - 1) / step
+			}
+		}
+	}
+	s, err := newSheetSized(f, "Requirements", header, widths, bold, rows, len(header))
 	if err != nil {
 		return err
 	}
-	grid := res.Plan.Grid
-	step := max(1, len(grid)/200)
 	for _, sr := range res.Strategies {
 		for _, c := range sr.Combos {
 			if len(c.Requirements) == 0 {
 				continue
+			}
+			cols := make([]int, len(c.Requirements))
+			for k, r := range c.Requirements {
+				cols[k] = index[requirementLabel(r)]
 			}
 			for i := 0; i < len(grid); i += step {
 				row := []any{sr.Name, c.Case, Candidate(c), sweep.Scale(grid[i]), sig(grid[i])}
@@ -616,8 +602,8 @@ func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
 				for k := range vals {
 					vals[k] = ""
 				}
-				for _, r := range c.Requirements {
-					vals[index[requirementLabel(r)]] = sig(r.Values[i])
+				for k, r := range c.Requirements {
+					vals[cols[k]] = sig(r.Values[i])
 				}
 				if err := s.add(append(row, vals...)...); err != nil {
 					return err

@@ -1,9 +1,7 @@
 package report
 
 import (
-	"archive/zip"
 	"bytes"
-	"io"
 	"math"
 	"regexp"
 	"strconv"
@@ -134,29 +132,6 @@ func fixDimension(b []byte) []byte {
 	out.WriteString(`<dimension ref="` + ref + `"/>`)
 	out.Write(b[loc[1]:])
 	return out.Bytes()
-}
-
-// copyFixedSheet copies a worksheet part with its dimension corrected.
-func copyFixedSheet(zw *zip.Writer, f *zip.File) error { return rewriteEntry(zw, f, fixDimension) }
-
-// rewriteEntry copies a zip entry through fix.
-func rewriteEntry(zw *zip.Writer, f *zip.File, fix func([]byte) []byte) error {
-	r, err := f.Open()
-	if err != nil {
-		return err
-	}
-	b, err := io.ReadAll(r)
-	r.Close()
-	if err != nil {
-		return err
-	}
-	hdr := f.FileHeader
-	w, err := zw.CreateHeader(&zip.FileHeader{Name: hdr.Name, Method: hdr.Method, Modified: hdr.Modified})
-	if err != nil {
-		return err
-	}
-	_, err = w.Write(fix(b))
-	return err
 }
 
 // shortName shortens a name to at most n characters readably: cut after a

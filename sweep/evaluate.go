@@ -44,6 +44,9 @@ type combo struct {
 	// value (analytic.go); windowOnly stops sweep at the window.
 	limitPlan  *limitPlan
 	windowOnly bool
+	// unmet is set by bandFailing: the requirement no candidate meets and
+	// what the library can do about it (recipe_search.go).
+	unmet *Unmet
 }
 
 // factor returns the multiplier a draw puts on an input (1 when none).

@@ -27,6 +27,9 @@ type compiled struct {
 	// band is set on a limit that checks a candidate's own value against
 	// the value the strategy requires (substitute.go).
 	band *band
+	// fn, when set, gives the margin of a limit that is no expression (a
+	// joint recipe, recipe_joint.go).
+	fn func(u float64) float64
 }
 
 // newCompiled readies a limit whose names resolve to forms; a product of
@@ -228,6 +231,9 @@ func sample(ctx context.Context, limits []compiled, us []float64, cache sampleCa
 func (l compiled) margin(u float64) float64 {
 	if l.info.Linear {
 		return l.info.A + l.info.B*u
+	}
+	if l.fn != nil {
+		return l.fn(u)
 	}
 	ln := u * math.Ln10
 	return l.lim.Margin(func(n string) float64 { return l.forms[n].at(ln) })

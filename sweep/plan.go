@@ -44,6 +44,8 @@ type Plan struct {
 	// rows failed a check: still known names, so other checks do not
 	// report them again as unknown (see failedNames).
 	failed failedNames
+	// recipes memoises what tunable candidates reach (recipe.go).
+	recipes *recipeMemo
 }
 
 // ProtoItem is a prototype item in SI.
@@ -64,6 +66,8 @@ type Candidate2 struct {
 	Row                     int
 	cond                    materials.Conditions
 	entry                   materials.Entry
+	// tune holds the conditions the row gives as ranges (recipe.go).
+	tune map[materials.Condition]materials.Range
 }
 
 // Facility is a named facility with its capabilities in SI.
@@ -124,7 +128,7 @@ type PlanMeasure struct {
 // catalogue and the units, and returns every problem at once.
 func Prepare(s *study.Study, lib *materials.Library, cat *FacilityCatalog) (*Plan, error) {
 	var ps study.Problems
-	p := &Plan{Study: s, Library: lib, Catalog: cat, Items: map[string]ProtoItem{}, Proto: map[string]float64{}, ProtoSrc: map[string]string{}}
+	p := &Plan{Study: s, Library: lib, Catalog: cat, Items: map[string]ProtoItem{}, Proto: map[string]float64{}, ProtoSrc: map[string]string{}, recipes: &recipeMemo{}}
 	p.Settings = parseSettings(s, &ps)
 	p.prepareCustom(&ps)
 	p.prepareItems(&ps)

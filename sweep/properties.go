@@ -69,7 +69,11 @@ func (p *Plan) prepareCandidates(rows []study.Candidate, sheet, role string, ps 
 		if entry == "" {
 			entry = name
 		}
-		props, e, cond, err := p.entryProps(entry, r.Conditions)
+		stated, tune, rerr := tunableConditions(r.Conditions)
+		props, e, cond, err := p.entryProps(entry, stated)
+		if err == nil {
+			err = rerr
+		}
 		if err != nil {
 			col := "library_entry"
 			if _, lerr := p.Library.Lookup(entry); lerr == nil {
@@ -78,7 +82,8 @@ func (p *Plan) prepareCandidates(rows []study.Candidate, sheet, role string, ps 
 			ps.Add(study.At(sheet, r.Row, col), "%v", err)
 			continue
 		}
-		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e})
+		out = append(out, &Candidate2{Name: name, Entry: entry, Conditions: strings.TrimSpace(r.Conditions), Role: role, Props: props, Row: r.Row, cond: cond, entry: e, tune: tune})
+		p.warnDefaultedMixture(sheet, r.Row, name, e, cond)
 	}
 	return out
 }

@@ -96,7 +96,10 @@ type ComboResult struct {
 	// AxisMeasures holds, with a second axis, each study measure at model
 	// scale over the grid, one row per axis value (in the measure's unit).
 	AxisMeasures map[string][][]float64
-	Err          string
+	// Unmet is, for an empty window a required property empties, what it
+	// needs and the library recipes that could meet it (recipe_search.go).
+	Unmet *Unmet
+	Err   string
 	// axis sweeps the second axis again on demand (AxisMarginRows).
 	axis *axisSweep
 }
@@ -125,7 +128,12 @@ type PropertyValue struct {
 	AtLo, AtHi    float64 // at the window edges (model values)
 	AtRecommended float64
 	Matches       []Match // library entries that meet it within tolerance at the recommended scale
-	Tuned         bool
+	// Recipes are, for a candidate brought to the requirement by its
+	// tunable conditions (recipe.go), the recipe of each scale band, and
+	// Recipe the one at the recommended scale (nil when none is solved).
+	Recipes []RecipeBand
+	Recipe  *RecipeAt
+	Tuned   bool
 	// Own is the candidate's own value of the property (NaN if it has
 	// none); a device (added mass, springs, a backbone beam) supplies the
 	// difference.

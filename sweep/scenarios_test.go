@@ -254,8 +254,8 @@ func TestScenarioIndex(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(list) != 8 {
-		t.Errorf("%d scenarios, want 8", len(list))
+	if len(list) != 9 {
+		t.Errorf("%d scenarios, want 9", len(list))
 	}
 	for _, s := range list {
 		if strings.TrimSpace(s.Description) == "" {

@@ -56,6 +56,9 @@ type check struct {
 	req   linForm
 	// protoValue is the prototype value the requirement scales from.
 	protoValue float64
+	// tune is set when the candidate can be brought to other values of q
+	// (recipe.go): own is then its value at the stated conditions.
+	tune *tuning
 }
 
 // band marks a limit built from a check, with the side it bounds.
@@ -205,6 +208,7 @@ next:
 		case sup != nil:
 			own, conds, _ := x.candidateValue(sup, q)
 			ch = check{kind: "match", q: q, cand: sup, who: sup.Name, own: own, conds: conds}
+			ch.tune = x.tuningOf(sup, q, own)
 		default:
 			if sol.FollowsFrom(q, stated) || sol.FollowsFrom(q, required) {
 				continue // judged through the property it is made of
@@ -226,6 +230,7 @@ next:
 		ch.protoValue, _ = x.proto(q)
 		out = append(out, ch)
 	}
+	linkJoint(out)
 	return out, blocked, notes
 }
 
@@ -242,7 +247,11 @@ func (x *combo) bandLimits() ([]compiled, []string, error) {
 			out = append(out, c)
 		}
 	}
-	return out, notes, nil
+	joint, err := x.jointLimits(checks)
+	if err != nil {
+		return nil, nil, err
+	}
+	return append(out, joint...), notes, nil
 }
 
 // bandLimit is one side of a check as a limit on the required value q:
@@ -250,9 +259,11 @@ func (x *combo) bandLimits() ([]compiled, []string, error) {
 func (x *combo) bandLimit(ch check, upper bool) (compiled, error) {
 	tol := x.plan.Settings.Tolerance
 	unit := quantityUnit(ch.q)
-	op, bound, side := "<=", ch.own/(1-tol), "below"
+	own := ch.ownHigh()
+	op, bound, side := "<=", own/(1-tol), "below"
 	if upper {
-		op, bound, side = ">=", ch.own/(1+tol), "above"
+		own = ch.ownLow()
+		op, bound, side = ">=", own/(1+tol), "above"
 	}
 	exact := fmt.Sprintf("%s %s %s", ch.q, op, strconv.FormatFloat(bound, 'g', -1, 64))
 	if unit != "" && unit != "1" {
@@ -265,6 +276,9 @@ func (x *combo) bandLimit(ch check, upper bool) (compiled, error) {
 	pct := strconv.FormatFloat(100*tol, 'g', 4, 64) + " %"
 	name := fmt.Sprintf("%s of %s no more than %s %s need", ch.q, ch.who, pct, side)
 	src := fmt.Sprintf("substitute check: %s has %s at %s; study tolerance %s", ch.who, formatSI(ch.own, unit), ch.conds, pct)
+	if ch.tune != nil {
+		src = fmt.Sprintf("substitute check: %s can be brought from %s to %s (%s); study tolerance %s", ch.who, formatSI(ch.tune.lo, unit), formatSI(ch.tune.hi, unit), ch.tune.knobsText, pct)
+	}
 	if ch.kind == "density" {
 		name = fmt.Sprintf("density of %s (unballasted) no more than %s %s need", ch.who, pct, side)
 		src = fmt.Sprintf("free body: %s cannot be ballasted, so its density %s must be the prototype's %s over k_density; study tolerance %s",
@@ -274,7 +288,7 @@ func (x *combo) bandLimit(ch check, upper bool) (compiled, error) {
 	if !upper {
 		sign = "−"
 	}
-	expr := fmt.Sprintf("%s needed %s %s = %s/(1 %s %s)", ch.q, op, formatSI(bound, unit), strconv.FormatFloat(ch.own, 'g', 6, 64), sign, strconv.FormatFloat(tol, 'g', 4, 64))
+	expr := fmt.Sprintf("%s needed %s %s = %s/(1 %s %s)", ch.q, op, formatSI(bound, unit), strconv.FormatFloat(own, 'g', 6, 64), sign, strconv.FormatFloat(tol, 'g', 4, 64))
 	c := newCompiled(LimitInfo{Name: name, Expression: expr, Source: src}, l, map[string]linForm{ch.q: ch.req})
 	c.band = &band{check: ch, upper: upper}
 	return c, nil
@@ -359,10 +373,17 @@ func (x *combo) bandFailing(limits []compiled, us []float64, condU float64) stri
 			b.WriteString("; " + s)
 		}
 	} else {
-		fmt.Fprintf(&b, "needs %s %s at %s; %s has %s at %s",
-			strings.ReplaceAll(ch.q, "_", " "), sig3(req, unit), Scale(kL), ch.who, sig3(ch.own, unit), ch.conds)
-		if s := x.closestEntry(ch, others); s != "" {
+		fmt.Fprintf(&b, "needs %s %s at %s; %s",
+			strings.ReplaceAll(ch.q, "_", " "), sig3(req, unit), Scale(kL), ch.ownText(unit))
+		// The library's recipes at this scale, or else the closest entry
+		// and what the library can make at most (recipe_search.go).
+		found := x.searchLibrary(ch, req)
+		if s := x.closestEntry(ch, others); s != "" && len(found.matches) == 0 {
 			b.WriteString("; " + s)
+		}
+		if found.text != "" {
+			b.WriteString("; " + found.text)
+			x.unmet = &Unmet{Quantity: ch.q, Required: req, KL: kL, Matches: found.matches, Reason: found.text}
 		}
 	}
 	// Where would the candidate meet it at all?
@@ -506,7 +527,7 @@ func (x *combo) entryChecks(role *Candidate2, e materials.Entry) ([]check, bool)
 func (x *combo) meets(ch check, ln float64) bool {
 	tol := x.plan.Settings.Tolerance
 	r := ch.req.at(ln)
-	return ch.own >= r*(1-tol)*(1-1e-12) && ch.own <= r*(1+tol)*(1+1e-12)
+	return ch.ownHigh() >= r*(1-tol)*(1-1e-12) && ch.ownLow() <= r*(1+tol)*(1+1e-12)
 }
 
 // libraryMatches lists the library entries that could replace the
@@ -546,6 +567,12 @@ func (x *combo) libraryMatches(q string, kL float64) []Match {
 		}
 		if pr, err := e.Property(q, materials.Conditions{}); err == nil {
 			m.Value = pr.Value
+		}
+		if rm, tuned, ok := recipeMatch(checks, q, ln); tuned {
+			if !ok {
+				continue
+			}
+			m.Conditions, m.Value = rm.Conditions, rm.Value
 		}
 		out = append(out, m)
 	}

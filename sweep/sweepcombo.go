@@ -201,7 +201,7 @@ func (o *sweepOut) fill(ctx context.Context, r *ComboResult) bool {
 	r.Window, r.Failing, r.Conditions, r.Notes = o.window, o.failing, o.conditions, o.notes
 	if o.window.Empty() && o.us != nil {
 		if s := x.bandFailing(o.limits, o.us, o.condU); s != "" {
-			r.Failing = s
+			r.Failing, r.Unmet = s, x.unmet
 		}
 	}
 	r.Margins, r.Limiting = o.margins, o.limiting
@@ -328,6 +328,9 @@ func (x *combo) fillRequired(r *ComboResult, lo, hi, ln float64) {
 		}
 		if x.cas.Technique == "substitute" {
 			pv.Matches = x.libraryMatches(q, r.Recommended)
+			if note := x.recipesFor(&pv, r.Window, r.Recommended); note != "" {
+				r.Notes = append(r.Notes, note)
+			}
 		}
 		r.Required = append(r.Required, pv)
 	}

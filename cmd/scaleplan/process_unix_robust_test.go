@@ -198,16 +198,19 @@ func TestBaselineMemory(t *testing.T) {
 }
 
 // TestInterruptRunWhileWriting sends Ctrl-C while the outputs of a study
-// are being written: the run pauses at the third check for an interrupt
+// are being written: the run pauses at the eighth check for an interrupt
 // while writing, when its staging folder already holds a finished output
-// (checked), and gets Ctrl-C there. It stops with exit 1 and
+// (checked), and gets Ctrl-C there. (The strategies' maps are drawn
+// concurrently, so the first checks of the workers may all come before
+// any map is finished; the tug study's eighth check, before its trade-off
+// plot, comes after all six strategy maps on any number of cores.) It stops with exit 1 and
 // "interrupted", and the output folder is empty: no temporary file, no
 // staging folder, never some outputs without the others.
 func TestInterruptRunWhileWriting(t *testing.T) {
 	dir := t.TempDir()
 	s := hTugCSV(t, dir, "tug")
 	out := filepath.Join(dir, "out")
-	code, stderr := hInterruptAt(t, "write:3", func() {
+	code, stderr := hInterruptAt(t, "write:8", func() {
 		var staged []string
 		for _, n := range rbNames(t, out) {
 			if report.IsPartial(n) {

@@ -73,8 +73,8 @@ func TestRunJSONKeys(t *testing.T) {
 	if err := json.Unmarshal([]byte(out), &studies); err != nil {
 		t.Fatalf("%v\n%s", err, out)
 	}
-	if len(studies) != 8 {
-		t.Errorf("%d studies, want the 8 scenarios", len(studies))
+	if len(studies) != 9 {
+		t.Errorf("%d studies, want the 9 scenarios", len(studies))
 	}
 	for _, s := range studies {
 		walkStudy(t, s)

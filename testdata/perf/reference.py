@@ -43,8 +43,19 @@ import sys
 
 import numpy as np
 
+# SI units a limit's constant may carry (scaleplan writes the tolerance
+# limits of substitute strategies as "kinematic_viscosity >= 1.5e-06
+# m^2/s"): the value is then already in SI, as the model values are, and
+# the unit is dropped. Any other unit leaves the limit unsupported.
+SI_UNITS = {"m", "s", "kg", "m/s", "m^2/s", "kg/m^3", "Pa", "Pa s", "Pa·s", "N", "N/m"}
+CONSTANT_WITH_UNIT = re.compile(r"^([-+]?[0-9.]+(?:[eE][-+]?[0-9]+)?)\s+(\S.*)$")
+
+
 def compile_side(text):
     """A limit side as a Python expression over numpy arrays."""
+    m = CONSTANT_WITH_UNIT.match(text)
+    if m and m.group(2) in SI_UNITS:
+        text = m.group(1)
     return compile(text.replace("^", "**"), "<limit>", "eval")
 
 
