@@ -128,15 +128,7 @@ func TestTemplateDropDowns(t *testing.T) {
 // gets a row tall enough for its lines (15 pt a line at the default font),
 // so printed lines do not run over each other.
 func TestInstructionsRowHeights(t *testing.T) {
-	path := filepath.Join(t.TempDir(), "t.xlsx")
-	if err := WriteXLSX(path, sampleStudy(), testLists()); err != nil {
-		t.Fatal(err)
-	}
-	f, err := excelize.OpenFile(path)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
+	f, _ := sampleWorkbook(t)
 	rows, err := f.GetRows(instrSheet)
 	if err != nil {
 		t.Fatal(err)

@@ -129,15 +129,7 @@ func TestCSVAndXLSXLoadIdentically(t *testing.T) {
 // TestFormulaLookingText: text that a spreadsheet program would take for a
 // formula is stored as text, and reads back as typed.
 func TestFormulaLookingText(t *testing.T) {
-	p := filepath.Join(t.TempDir(), "s.xlsx")
-	if err := WriteXLSX(p, sampleStudy(), testLists()); err != nil {
-		t.Fatal(err)
-	}
-	f, err := excelize.OpenFile(p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
+	f, p := sampleWorkbook(t)
 	for _, tt := range []struct{ cell, want string }{
 		{"B8", "=SUM(A1)"}, {"B9", "+1"}, {"B10", "-x"}, {"B11", "@a"}, {"B12", "007"}, {"B5", "1.2e4"}, {"B6", "-0.5"},
 	} {
@@ -268,15 +260,7 @@ func TestCSVLayout(t *testing.T) {
 }
 
 func TestXLSXLayout(t *testing.T) {
-	p := filepath.Join(t.TempDir(), "s.xlsx")
-	if err := WriteXLSX(p, sampleStudy(), testLists()); err != nil {
-		t.Fatal(err)
-	}
-	f, err := excelize.OpenFile(p)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
+	f, _ := sampleWorkbook(t)
 	wantSheets := append(append([]string{"Instructions"}, SheetNames...), "Lists", choicesSheet)
 	if got := f.GetSheetList(); !reflect.DeepEqual(got, wantSheets) {
 		t.Errorf("sheets %v, want %v", got, wantSheets)
@@ -377,4 +361,20 @@ func TestXLSXLayout(t *testing.T) {
 	if list, _ := f2.GetDataValidations("Strategies"); len(list) != 0 {
 		t.Errorf("validations without lists: %v", list)
 	}
+}
+
+// sampleWorkbook writes sampleStudy as a template and opens it; it returns
+// the file's path too.
+func sampleWorkbook(t *testing.T) (*excelize.File, string) {
+	t.Helper()
+	p := filepath.Join(t.TempDir(), "s.xlsx")
+	if err := WriteXLSX(p, sampleStudy(), testLists()); err != nil {
+		t.Fatal(err)
+	}
+	f, err := excelize.OpenFile(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Cleanup(func() { f.Close() })
+	return f, p
 }
