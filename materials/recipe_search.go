@@ -130,7 +130,7 @@ func (l *Library) Extreme(quantity string, lowest bool, limits map[Condition]Ran
 		if err != nil {
 			continue
 		}
-		if !found || sign*r.Target.Value < sign*best.Target.Value {
+		if !found || extremeBetter(r, best, sign) {
 			best, found = r, true
 		}
 	}
@@ -138,6 +138,18 @@ func (l *Library) Extreme(quantity string, lowest bool, limits map[Condition]Ran
 		return Recipe{}, fmt.Errorf("%s: %w", quantity, ErrNoEntry)
 	}
 	return best, nil
+}
+
+// extremeBetter says whether r beats best as the extreme. Values within
+// 0.5 % of each other are the same for a planner; then the recipe that
+// moves fewer conditions wins, so a pure liquid is named rather than a
+// mixture or solution brought to its pure end (water, not brine with no
+// salt).
+func extremeBetter(r, best Recipe, sign float64) bool {
+	if math.Abs(r.Target.Value-best.Target.Value) <= 0.005*math.Abs(best.Target.Value) {
+		return len(r.Tuned) < len(best.Tuned)
+	}
+	return sign*r.Target.Value < sign*best.Target.Value
 }
 
 // extremeOf is one entry's extreme of a property over its free conditions.

@@ -271,6 +271,13 @@ func TestFindRecipesAndLeastViscousLiquid(t *testing.T) {
 	if err != nil || !nearRel(least30.Target.Value, 0.801e-6, 0.03) {
 		t.Errorf("least viscous liquid at 10–30 °C: %v (%v)", least30, err)
 	}
+	// Near-equal extremes name the liquid moved on fewer conditions: pure
+	// water at 30 °C, not brine or a water–glycerol mixture brought to zero
+	// fraction (above 40 °C, the end of the library's water entry, only
+	// the solutions reach hot water).
+	if least30.Entry != "water" {
+		t.Errorf("least viscous liquid at 10–30 °C named %s, want water (pure)", least30.Entry)
+	}
 	// A requirement inside the water–glycerol range finds recipes, the
 	// mixture among them, the study's 15 °C kept.
 	s = l.FindRecipes(RecipeSpec{Target: Target{Quantity: "kinematic_viscosity", Value: 1e-5}, At: at}, Liquids)
