@@ -240,28 +240,26 @@ func classicMatches(g PiGroup, sig []sigTerm, dimOf func(VarExp) Dimension) []cl
 		if !ok {
 			continue
 		}
-		excluded := false
-		if c.notHint != nil {
-			for _, e := range g.Exponents {
-				if dimOf(e) == c.hintDim && matchHints(e.Name, c.notHint) {
-					excluded = true
-				}
-			}
-		}
-		if excluded {
+		if hintedBy(g, dimOf, c.hintDim, c.notHint) {
 			continue
 		}
-		hinted := false
-		if c.hint != nil {
-			for _, e := range g.Exponents {
-				if dimOf(e) == c.hintDim && matchHints(e.Name, c.hint) {
-					hinted = true
-				}
-			}
-		}
-		matches = append(matches, classicMatch{c, k, hinted})
+		matches = append(matches, classicMatch{c, k, hintedBy(g, dimOf, c.hintDim, c.hint)})
 	}
 	return matches
+}
+
+// hintedBy says whether a variable of g of dimension dim has a name that
+// fits h (false for nil h).
+func hintedBy(g PiGroup, dimOf func(VarExp) Dimension, dim Dimension, h *nameHints) bool {
+	if h == nil {
+		return false
+	}
+	for _, e := range g.Exponents {
+		if dimOf(e) == dim && matchHints(e.Name, h) {
+			return true
+		}
+	}
+	return false
 }
 
 // preferredNames joins the names of the matches kept: a hinted specialised
