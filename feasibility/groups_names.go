@@ -190,8 +190,16 @@ func recogniseGroup(g PiGroup, index map[string]int, dims []Dimension) string {
 	if n, ok := convectionName(g, dimOf); ok {
 		return n
 	}
+	sig := groupSignature(g, dimOf)
+	if len(sig) == 0 {
+		return ratioName(g, dimOf)
+	}
+	return preferredNames(classicMatches(g, sig, dimOf))
+}
 
-	// Signature: exponents summed per dimension, zero sums dropped.
+// groupSignature is a group's exponents summed per dimension, zero sums
+// dropped.
+func groupSignature(g PiGroup, dimOf func(VarExp) Dimension) []sigTerm {
 	var sig []sigTerm
 	for _, e := range g.Exponents {
 		d := dimOf(e)
@@ -212,47 +220,53 @@ func recogniseGroup(g PiGroup, index map[string]int, dims []Dimension) string {
 			nonzero = append(nonzero, s)
 		}
 	}
-	sig = nonzero
+	return nonzero
+}
 
-	if len(sig) == 0 {
-		return ratioName(g, dimOf)
-	}
+// classicMatch is a classic group whose signature a group has, to the
+// power k; hinted when one of the group's variables carries its hint.
+type classicMatch struct {
+	c      classicGroup
+	k      Rat
+	hinted bool
+}
 
-	type match struct {
-		c      classicGroup
-		k      Rat
-		hinted bool
-	}
-	var matches []match
+// classicMatches lists the classic groups with signature sig, leaving out
+// those a variable's name excludes.
+func classicMatches(g PiGroup, sig []sigTerm, dimOf func(VarExp) Dimension) []classicMatch {
+	var matches []classicMatch
 	for _, c := range classicGroups {
 		k, ok := proportional(sig, c.terms)
 		if !ok {
 			continue
 		}
-		excluded := false
-		if c.notHint != nil {
-			for _, e := range g.Exponents {
-				if dimOf(e) == c.hintDim && matchHints(e.Name, c.notHint) {
-					excluded = true
-				}
-			}
-		}
-		if excluded {
+		if hintedBy(g, dimOf, c.hintDim, c.notHint) {
 			continue
 		}
-		hinted := false
-		if c.hint != nil {
-			for _, e := range g.Exponents {
-				if dimOf(e) == c.hintDim && matchHints(e.Name, c.hint) {
-					hinted = true
-				}
-			}
-		}
-		matches = append(matches, match{c, k, hinted})
+		matches = append(matches, classicMatch{c, k, hintedBy(g, dimOf, c.hintDim, c.hint)})
 	}
-	// A hinted specialised name beats a hinted general one, which beats the
-	// unhinted general names; specialised names need their hint.
-	keep := func(m match) bool { return !m.c.hintOnly }
+	return matches
+}
+
+// hintedBy says whether a variable of g of dimension dim has a name that
+// fits h (false for nil h).
+func hintedBy(g PiGroup, dimOf func(VarExp) Dimension, dim Dimension, h *nameHints) bool {
+	if h == nil {
+		return false
+	}
+	for _, e := range g.Exponents {
+		if dimOf(e) == dim && matchHints(e.Name, h) {
+			return true
+		}
+	}
+	return false
+}
+
+// preferredNames joins the names of the matches kept: a hinted specialised
+// name beats a hinted general one, which beats the unhinted general names;
+// specialised names need their hint.
+func preferredNames(matches []classicMatch) string {
+	keep := func(m classicMatch) bool { return !m.c.hintOnly }
 	anyHinted, anySpecial := false, false
 	for _, m := range matches {
 		if m.hinted {
@@ -264,9 +278,9 @@ func recogniseGroup(g PiGroup, index map[string]int, dims []Dimension) string {
 	}
 	switch {
 	case anySpecial:
-		keep = func(m match) bool { return m.hinted && m.c.hintOnly }
+		keep = func(m classicMatch) bool { return m.hinted && m.c.hintOnly }
 	case anyHinted:
-		keep = func(m match) bool { return m.hinted }
+		keep = func(m classicMatch) bool { return m.hinted }
 	}
 	var out []string
 	for _, m := range matches {

@@ -52,9 +52,10 @@ type RelaxedGroup struct {
 	Missing  []string `json:"missing,omitempty"`
 }
 
-// NewRulesReport evaluates a solution at the given scale factors. length
-// may be 0 when no length scale was given.
-func NewRulesReport(sol *feasibility.Solution, given map[string]float64, length float64) (*RulesReport, error) {
+// NewRulesReport lays out a solution evaluated at the given scale factors
+// (feasibility.EvaluateRules) for rendering.
+func NewRulesReport(ev *feasibility.RulesEvaluation) *RulesReport {
+	sol, given, length := ev.Solution, ev.Given, ev.Length
 	s := sol.Strategy
 	r := &RulesReport{
 		Retain: nonNil(s.Retain), Relax: nonNil(s.Relax), Untie: nonNil(s.Untie), Given: given,
@@ -62,13 +63,6 @@ func NewRulesReport(sol *feasibility.Solution, given map[string]float64, length 
 		Exponents: map[string]map[string]string{}, Laws: map[string]string{},
 		Required: nonNil(sol.Required), Unset: []string{}, Relaxed: []RelaxedGroup{},
 		Consistent: true, sol: sol, length: length, Warnings: sol.Warnings,
-	}
-	v := feasibility.Values{}
-	for q, k := range given {
-		v[q] = k
-	}
-	if length > 0 {
-		v["length"] = length
 	}
 	for _, l := range sol.Laws {
 		if l.Status == feasibility.Unset {
@@ -84,21 +78,14 @@ func NewRulesReport(sol *feasibility.Solution, given map[string]float64, length 
 		r.Exponents[l.Quantity] = m
 		r.Laws[l.Quantity] = feasibility.FormatProduct(sol.Params, l.Exp)
 	}
-	if length > 0 {
-		f, err := sol.Factors(v)
-		if err != nil {
-			return nil, err
-		}
-		for q, x := range f {
+	if ev.Factors != nil {
+		f := make(map[string]float64, len(ev.Factors))
+		for q, x := range ev.Factors {
 			f[q] = Round(x)
 		}
 		r.Factors = f
 	}
-	checks, err := sol.Check(v)
-	if err != nil {
-		return nil, err
-	}
-	for _, c := range checks {
+	for _, c := range ev.Checks {
 		eq := c.Equation(sol.Params)
 		r.Conditions = append(r.Conditions, c.Protects+": "+eq)
 		r.Explained = append(r.Explained, c.Sentence(sol.Params))
@@ -113,18 +100,18 @@ func NewRulesReport(sol *feasibility.Solution, given map[string]float64, length 
 			r.Pinned = &p
 		}
 	}
-	for _, m := range sol.Relaxed {
+	for i, m := range sol.Relaxed {
 		g := RelaxedGroup{Law: m.Law, Group: m.Group, Missing: m.Missing}
 		if len(m.Missing) == 0 {
 			g.ScaleLaw = feasibility.FormatProduct(sol.Params, m.Exp)
-			if x, ok, err := sol.MismatchValue(m, v); err == nil && ok {
-				x = Round(x)
+			if at := ev.Mismatches[i]; at.Known {
+				x := Round(at.Value)
 				g.Ratio = &x
 			}
 		}
 		r.Relaxed = append(r.Relaxed, g)
 	}
-	return r, nil
+	return r
 }
 
 // Broken returns an error when the given numbers contradict a definition
@@ -155,8 +142,23 @@ func writeJSON(w io.Writer, v any) error {
 
 // WriteText writes the report as readable tables.
 func (r *RulesReport) WriteText(w io.Writer) error {
-	sol := r.sol
 	b := &strings.Builder{}
+	r.writeRequest(b)
+	r.writeLaws(b)
+	r.writeConditions(b)
+	fmt.Fprintf(b, "Free choices: %s\n", orNone(r.Free))
+	fmt.Fprintf(b, "Required properties: %s\n", orNone(r.Required))
+	r.writeRelaxed(b)
+	for _, warn := range r.Warnings {
+		fmt.Fprintf(b, "\nWarning: %s.\n", warn)
+	}
+	_, err := io.WriteString(w, b.String())
+	return err
+}
+
+// writeRequest writes the heading: the convention, the strategy and the
+// factors given.
+func (r *RulesReport) writeRequest(b *strings.Builder) {
 	fmt.Fprintf(b, "Scale laws (%s)\n", Convention)
 	fmt.Fprintf(b, "retain: %s", strings.Join(r.Retain, ", "))
 	if len(r.Relax) > 0 {
@@ -175,6 +177,12 @@ func (r *RulesReport) WriteText(w io.Writer) error {
 		fmt.Fprintf(b, "given: %s\n", strings.Join(parts, ", "))
 	}
 	b.WriteString("\n")
+}
+
+// writeLaws writes the table of scale laws, with the factors at the
+// length scale when one was given, and the quantities left unset.
+func (r *RulesReport) writeLaws(b *strings.Builder) {
+	sol := r.sol
 	tw := tabwriter.NewWriter(b, 2, 4, 2, ' ', 0)
 	header := "quantity\tstatus\tscale law k ="
 	if r.Factors != nil {
@@ -199,45 +207,48 @@ func (r *RulesReport) WriteText(w io.Writer) error {
 	if len(r.Unset) > 0 {
 		fmt.Fprintf(b, "not set by this strategy: %s\n", strings.Join(r.Unset, ", "))
 	}
+}
+
+// writeConditions writes the compatibility conditions in words, and
+// whether the given factors meet them.
+func (r *RulesReport) writeConditions(b *strings.Builder) {
 	b.WriteString("\nCompatibility conditions:")
 	if len(r.Conditions) == 0 {
 		b.WriteString(" none\n")
-	} else {
-		b.WriteString("\n")
-		for _, s := range r.Explained {
-			fmt.Fprintf(b, "  - %s\n", s)
-		}
-		if !r.Consistent {
-			b.WriteString("  The given values do not satisfy every condition: complete similarity is not possible as requested.\n")
-		}
-		if r.Pinned != nil {
-			fmt.Fprintf(b, "  With the given properties only kL = %s satisfies them.\n", Num(*r.Pinned))
-		}
+		return
 	}
-	fmt.Fprintf(b, "Free choices: %s\n", orNone(r.Free))
-	fmt.Fprintf(b, "Required properties: %s\n", orNone(r.Required))
-	if len(r.Relaxed) > 0 {
-		b.WriteString("\nRelaxed laws (mismatch = group in prototype / group in model):\n")
-		tw = tabwriter.NewWriter(b, 2, 4, 2, ' ', 0)
-		fmt.Fprintln(tw, "  law\tgroup\tmismatch\tvalue")
-		for _, g := range r.Relaxed {
-			val := "-"
-			if g.Ratio != nil {
-				val = Num(*g.Ratio)
-			}
-			law := g.ScaleLaw
-			if len(g.Missing) > 0 {
-				law = "give " + strings.Join(g.Missing, ", ") + " to evaluate"
-			}
-			fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", g.Law, g.Group, law, val)
+	b.WriteString("\n")
+	for _, s := range r.Explained {
+		fmt.Fprintf(b, "  - %s\n", s)
+	}
+	if !r.Consistent {
+		b.WriteString("  The given values do not satisfy every condition: complete similarity is not possible as requested.\n")
+	}
+	if r.Pinned != nil {
+		fmt.Fprintf(b, "  With the given properties only kL = %s satisfies them.\n", Num(*r.Pinned))
+	}
+}
+
+// writeRelaxed writes the table of relaxed laws and their mismatches.
+func (r *RulesReport) writeRelaxed(b *strings.Builder) {
+	if len(r.Relaxed) == 0 {
+		return
+	}
+	b.WriteString("\nRelaxed laws (mismatch = group in prototype / group in model):\n")
+	tw := tabwriter.NewWriter(b, 2, 4, 2, ' ', 0)
+	fmt.Fprintln(tw, "  law\tgroup\tmismatch\tvalue")
+	for _, g := range r.Relaxed {
+		val := "-"
+		if g.Ratio != nil {
+			val = Num(*g.Ratio)
 		}
-		tw.Flush()
+		law := g.ScaleLaw
+		if len(g.Missing) > 0 {
+			law = "give " + strings.Join(g.Missing, ", ") + " to evaluate"
+		}
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", g.Law, g.Group, law, val)
 	}
-	for _, warn := range r.Warnings {
-		fmt.Fprintf(b, "\nWarning: %s.\n", warn)
-	}
-	_, err := io.WriteString(w, b.String())
-	return err
+	tw.Flush()
 }
 
 func orNone(s []string) string {

@@ -75,14 +75,27 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 	x := &combo{plan: p, cas: c, medium: medium, material: material, fac: fac, axis: axis,
 		values: feasibility.Values{}, props: map[string]materials.Property{}, caps: map[string]float64{}, gEnv: StandardGravity,
 		pert: pert, candFactor: map[string]float64{}, byCand: map[*Candidate2]map[string]materials.Property{}}
+	x.setCaps()
+	if err := x.setCandidates(); err != nil {
+		return nil, err
+	}
+	if err := x.setParams(); err != nil {
+		return nil, err
+	}
+	return x, nil
+}
+
+// setCaps sets the facility's capabilities as drawn, the axis value where
+// the axis is one of them, and the gravity of a g-level.
+func (x *combo) setCaps() {
+	p, fac, axis := x.plan, x.fac, x.axis
 	if fac != nil {
 		for k, v := range fac.Caps {
 			x.caps[k] = v * x.factor(inputKey{inputCapability, fac.Name, k})
 		}
 	}
 	ax := p.Settings.Axis
-	hasAxis := !math.IsNaN(axis)
-	if hasAxis {
+	if !math.IsNaN(axis) {
 		if _, ok := x.caps[ax]; ok || (fac != nil && p.isCapability(fac, ax)) {
 			x.caps[ax] = axis
 		}
@@ -90,9 +103,14 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 	if g, ok := x.caps["g_level"]; ok {
 		x.gEnv = StandardGravity * g
 	}
-	// Candidate properties, re-evaluated when the axis is a medium
-	// condition.
-	for _, cand := range []*Candidate2{material, medium} {
+}
+
+// setCandidates sets the candidates' properties as drawn, re-evaluated
+// when the axis is a medium condition.
+func (x *combo) setCandidates() error {
+	ax, axis := x.plan.Settings.Axis, x.axis
+	hasAxis := !math.IsNaN(axis)
+	for _, cand := range []*Candidate2{x.material, x.medium} {
 		if cand == nil {
 			continue
 		}
@@ -100,11 +118,11 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 		if hasAxis && isCondition(ax) && cand.Role == "medium" {
 			cond := cand.cond
 			if err := setCondition(&cond, ax, axis); err != nil {
-				return nil, err
+				return err
 			}
 			list, err := cand.entry.At(cond)
 			if err != nil {
-				return nil, fmt.Errorf("medium %q at %s = %s: %v", cand.Name, ax, strconv.FormatFloat(axis, 'g', 6, 64), err)
+				return fmt.Errorf("medium %q at %s = %s: %v", cand.Name, ax, strconv.FormatFloat(axis, 'g', 6, 64), err)
 			}
 			props = map[string]materials.Property{}
 			for _, pr := range list {
@@ -121,6 +139,15 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 		}
 		x.byCand[cand] = own
 	}
+	return nil
+}
+
+// setParams fixes the solution's scale factors: the given ones from the
+// prototype and the model's properties, the free ones from the case's
+// fixed values or the axis.
+func (x *combo) setParams() error {
+	c, ax, axis := x.cas, x.plan.Settings.Axis, x.axis
+	hasAxis := !math.IsNaN(axis)
 	sol := c.Solution
 	x.logp = make([]float64, len(sol.Params))
 	for j, par := range sol.Params {
@@ -132,11 +159,11 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 		case "given":
 			proto, ok := x.proto(par.Quantity)
 			if !ok {
-				return nil, fmt.Errorf("the prototype has no %s", par.Quantity)
+				return fmt.Errorf("the prototype has no %s", par.Quantity)
 			}
 			model, ok := x.modelProperty(par.Quantity)
 			if !ok {
-				return nil, fmt.Errorf("%s is given but %s has none", par.Quantity, describePair(medium, material))
+				return fmt.Errorf("%s is given but %s has none", par.Quantity, describePair(x.medium, x.material))
 			}
 			k = proto / model
 		case "free":
@@ -145,16 +172,16 @@ func (p *Plan) newComboDrawn(c *PlanCase, medium, material *Candidate2, fac *Fac
 			} else if hasAxis && ax == par.Quantity {
 				k = axis
 			} else {
-				return nil, fmt.Errorf("the %s scale is a free choice: fix it or sweep it", par.Quantity)
+				return fmt.Errorf("the %s scale is a free choice: fix it or sweep it", par.Quantity)
 			}
 		}
 		if !(k > 0) || math.IsInf(k, 0) {
-			return nil, fmt.Errorf("scale factor of %s is %v", par.Quantity, k)
+			return fmt.Errorf("scale factor of %s is %v", par.Quantity, k)
 		}
 		x.logp[j] = math.Log(k)
 		x.values[par.Quantity] = k
 	}
-	return x, nil
+	return nil
 }
 
 func (x *combo) factorOr1(q string) float64 {

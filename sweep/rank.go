@@ -124,86 +124,96 @@ func parseRankSettings(s *study.Study, st *Settings, ps *study.Problems) {
 // (the cheaper with recommend = cheapest), then the smaller worst
 // mismatch, then the order of the Strategies sheet.
 func (p *Plan) Rank(srs []*StrategyResult) []RankEntry {
-	st := p.Settings
 	out := make([]RankEntry, 0, len(srs))
 	for _, sr := range srs {
-		e := RankEntry{Strategy: sr.Name, Result: sr, Best: sr.Best, Recommended: math.NaN(), ModelLength: math.NaN(), Cost: math.NaN()}
-		c := sr.Best
-		if c == nil {
-			e.Reason = "no feasible scale"
-			if why := FailingReason(sr); why != "" {
-				e.Reason += ": " + why
-			}
-			out = append(out, e)
-			continue
-		}
-		e.Feasible = true
-		e.Recommended, e.ModelLength, e.Cost = c.Recommended, c.ModelLength, c.Cost
-		e.Relaxed = p.relaxedAt(sr, c)
-		var counted, within, weak []string
-		for i := range e.Relaxed {
-			r := &e.Relaxed[i]
-			r.Weak, r.Governing = slices.Contains(st.WeakLaws, r.Law), slices.Contains(st.GoverningLaws, r.Law)
-			if r.Weak {
-				weak = append(weak, r.Law)
-				continue
-			}
-			if e.WorstMismatch == nil || worse(*r, *e.WorstMismatch) {
-				e.WorstMismatch = r
-			}
-			switch {
-			case r.Governing:
-				counted = append(counted, fmt.Sprintf("relaxes %s, which the study marks governing: %s", r.Law, r.Words()))
-			case math.IsNaN(r.Ratio):
-				counted = append(counted, fmt.Sprintf("relaxes %s: %s", r.Law, r.Words()))
-			case r.Size() > st.MismatchThreshold:
-				counted = append(counted, fmt.Sprintf("relaxes %s: %s, beyond the threshold %s", r.Law, r.Words(), sig3(st.MismatchThreshold, "")))
-			default:
-				within = append(within, fmt.Sprintf("relaxes %s: %s, within the threshold %s", r.Law, r.Words(), sig3(st.MismatchThreshold, "")))
-			}
-		}
-		var parts []string
-		switch {
-		case len(counted) > 0:
-			e.ScaleEffect = true
-			parts = counted
-		case len(within) > 0:
-			parts = within
-		case len(weak) > 0:
-			parts = []string{"relaxes only laws the study marks weak (" + strings.Join(uniq(weak), ", ") + ")"}
-		default:
-			parts = []string{"relaxes no law"}
-		}
-		e.Reason = strings.Join(parts, "; ")
-		out = append(out, e)
+		out = append(out, p.rankEntry(sr))
 	}
-	cheapest := st.Recommend == "cheapest"
-	sort.SliceStable(out, func(i, j int) bool {
-		a, b := out[i], out[j]
-		if a.Feasible != b.Feasible {
-			return a.Feasible
-		}
-		if !a.Feasible {
-			return false
-		}
-		if a.ScaleEffect != b.ScaleEffect {
-			return !a.ScaleEffect
-		}
-		if cheapest && !math.IsNaN(a.Cost) && !math.IsNaN(b.Cost) && a.Cost != b.Cost {
-			return a.Cost < b.Cost
-		}
-		if cheapest && math.IsNaN(a.Cost) != math.IsNaN(b.Cost) {
-			return !math.IsNaN(a.Cost)
-		}
-		if a.Recommended != b.Recommended {
-			return a.Recommended < b.Recommended
-		}
-		return worstSize(a) < worstSize(b)
-	})
+	cheapest := p.Settings.Recommend == "cheapest"
+	sort.SliceStable(out, func(i, j int) bool { return rankedBefore(out[i], out[j], cheapest) })
 	for i := range out {
 		out[i].Rank = i + 1
 	}
 	return out
+}
+
+// rankEntry is a strategy's entry before ranking: feasible or not, the
+// laws it relaxes at its best scale, its worst mismatch and whether it
+// has a scale effect, with the reason in words.
+func (p *Plan) rankEntry(sr *StrategyResult) RankEntry {
+	st := p.Settings
+	e := RankEntry{Strategy: sr.Name, Result: sr, Best: sr.Best, Recommended: math.NaN(), ModelLength: math.NaN(), Cost: math.NaN()}
+	c := sr.Best
+	if c == nil {
+		e.Reason = "no feasible scale"
+		if why := FailingReason(sr); why != "" {
+			e.Reason += ": " + why
+		}
+		return e
+	}
+	e.Feasible = true
+	e.Recommended, e.ModelLength, e.Cost = c.Recommended, c.ModelLength, c.Cost
+	e.Relaxed = p.relaxedAt(sr, c)
+	var counted, within, weak []string
+	for i := range e.Relaxed {
+		r := &e.Relaxed[i]
+		r.Weak, r.Governing = slices.Contains(st.WeakLaws, r.Law), slices.Contains(st.GoverningLaws, r.Law)
+		if r.Weak {
+			weak = append(weak, r.Law)
+			continue
+		}
+		if e.WorstMismatch == nil || worse(*r, *e.WorstMismatch) {
+			e.WorstMismatch = r
+		}
+		switch {
+		case r.Governing:
+			counted = append(counted, fmt.Sprintf("relaxes %s, which the study marks governing: %s", r.Law, r.Words()))
+		case math.IsNaN(r.Ratio):
+			counted = append(counted, fmt.Sprintf("relaxes %s: %s", r.Law, r.Words()))
+		case r.Size() > st.MismatchThreshold:
+			counted = append(counted, fmt.Sprintf("relaxes %s: %s, beyond the threshold %s", r.Law, r.Words(), sig3(st.MismatchThreshold, "")))
+		default:
+			within = append(within, fmt.Sprintf("relaxes %s: %s, within the threshold %s", r.Law, r.Words(), sig3(st.MismatchThreshold, "")))
+		}
+	}
+	var parts []string
+	switch {
+	case len(counted) > 0:
+		e.ScaleEffect = true
+		parts = counted
+	case len(within) > 0:
+		parts = within
+	case len(weak) > 0:
+		parts = []string{"relaxes only laws the study marks weak (" + strings.Join(uniq(weak), ", ") + ")"}
+	default:
+		parts = []string{"relaxes no law"}
+	}
+	e.Reason = strings.Join(parts, "; ")
+	return e
+}
+
+// rankedBefore is the order of Rank: feasible first, then without a scale
+// effect, then (cheapest) the lower cost, then the larger model, then the
+// smaller worst mismatch.
+func rankedBefore(a, b RankEntry, cheapest bool) bool {
+	if a.Feasible != b.Feasible {
+		return a.Feasible
+	}
+	if !a.Feasible {
+		return false
+	}
+	if a.ScaleEffect != b.ScaleEffect {
+		return !a.ScaleEffect
+	}
+	if cheapest && !math.IsNaN(a.Cost) && !math.IsNaN(b.Cost) && a.Cost != b.Cost {
+		return a.Cost < b.Cost
+	}
+	if cheapest && math.IsNaN(a.Cost) != math.IsNaN(b.Cost) {
+		return !math.IsNaN(a.Cost)
+	}
+	if a.Recommended != b.Recommended {
+		return a.Recommended < b.Recommended
+	}
+	return worstSize(a) < worstSize(b)
 }
 
 // worse reports whether a is a worse mismatch than b; one that cannot be

@@ -8,7 +8,6 @@ import (
 	"strings"
 
 	"scaleplan/feasibility"
-	"scaleplan/materials"
 )
 
 // Candidates judged against what the strategy requires (spec §8.1).
@@ -126,11 +125,23 @@ func (x *combo) requiredForm(q string) (linForm, bool) {
 // checks lists what the combination's candidates must meet. blocked says
 // why no candidate can: a required property none of them states.
 func (x *combo) checks() (out []check, blocked string, notes []string) {
-	sol := x.cas.Solution
-	tuned := func(q string) bool { return slices.Contains(sol.Strategy.Tuned, q) }
-	// Free bodies and grains: density as the prototype's over k_density.
+	out, blocked, notes = x.densityChecks()
+	out, blocked, notes = x.requiredChecks(out, blocked, notes)
+	linkJoint(out)
+	return out, blocked, notes
+}
+
+// strategyTunes says whether the strategy tunes q (a device or the
+// facility brings it to the required value).
+func (x *combo) strategyTunes(q string) bool {
+	return slices.Contains(x.cas.Solution.Strategy.Tuned, q)
+}
+
+// densityChecks are the checks of free bodies and grains: density as the
+// prototype's over k_density.
+func (x *combo) densityChecks() (out []check, blocked string, notes []string) {
 	for _, c := range []*Candidate2{x.material, x.medium} {
-		if !x.unballasted(c) || tuned("density") {
+		if !x.unballasted(c) || x.strategyTunes("density") {
 			continue
 		}
 		own, conds, ok := x.candidateValue(c, "density")
@@ -153,53 +164,67 @@ func (x *combo) checks() (out []check, blocked string, notes []string) {
 		}
 		out = append(out, check{kind: "density", q: "density", cand: c, who: c.Name, own: own, conds: conds, req: req, protoValue: proto})
 	}
-	densityDone := func(c *Candidate2) bool {
-		for _, ch := range out {
-			if ch.kind == "density" && ch.cand == c {
-				return true
-			}
-		}
-		return false
-	}
-	// Required properties, the defined ones (ν, E·I) first so that the
-	// one a candidate states is checked and the other, linked to it, is not
-	// checked twice.
+	return out, blocked, notes
+}
+
+// requiredOrder lists the required properties, the defined ones (ν, E·I)
+// first so that the one a candidate states is checked and the other,
+// linked to it, is not checked twice.
+func requiredOrder(required []string) []string {
 	var order []string
-	for _, q := range sol.Required {
+	for _, q := range required {
 		if feasibility.IsDefined(q) {
 			order = append(order, q)
 		}
 	}
-	for _, q := range sol.Required {
+	for _, q := range required {
 		if !feasibility.IsDefined(q) {
 			order = append(order, q)
 		}
 	}
+	return order
+}
+
+// skipsCheck says whether required q, supplied by sup, needs no check of
+// its own beside those in out: tuned, already checked as a free body's
+// density, supplied by a device, set by the facility, or linked to a
+// property already matched.
+func (x *combo) skipsCheck(q string, sup *Candidate2, out []check) bool {
+	sol := x.cas.Solution
+	if x.strategyTunes(q) {
+		return true
+	}
+	if q == "density" && sup != nil && slices.ContainsFunc(out, func(ch check) bool { return ch.kind == "density" && ch.cand == sup }) {
+		return true
+	}
+	if x.cas.Technique == "simulated" && deviceSupplied[q] != "" && !(q == "density" && x.unballasted(sup)) {
+		return true
+	}
+	if q == "pressure" && slices.Contains(sol.Strategy.Retain, "cavitation") {
+		// Under the cavitation law the required pressure is the
+		// ambient pressure at the body, which the tunnel or tank
+		// sets: its pressure range is a facility limit, not a
+		// property of the fluid.
+		return true
+	}
+	for _, ch := range out {
+		if ch.kind == "match" && sol.Linked(q, ch.q) {
+			return true
+		}
+	}
+	return false
+}
+
+// requiredChecks appends to out the checks of the properties the strategy
+// requires of the model, and says why one cannot be checked.
+func (x *combo) requiredChecks(out []check, blocked string, notes []string) ([]check, string, []string) {
+	sol := x.cas.Solution
 	required := func(t string) bool { return slices.Contains(sol.Required, t) }
 	stated := func(t string) bool { return required(t) && x.supplier(t) != nil }
-next:
-	for _, q := range order {
-		if tuned(q) {
-			continue
-		}
+	for _, q := range requiredOrder(sol.Required) {
 		sup := x.supplier(q)
-		if q == "density" && sup != nil && densityDone(sup) {
+		if x.skipsCheck(q, sup, out) {
 			continue
-		}
-		if x.cas.Technique == "simulated" && deviceSupplied[q] != "" && !(q == "density" && x.unballasted(sup)) {
-			continue
-		}
-		if q == "pressure" && slices.Contains(sol.Strategy.Retain, "cavitation") {
-			// Under the cavitation law the required pressure is the
-			// ambient pressure at the body, which the tunnel or tank
-			// sets: its pressure range is a facility limit, not a
-			// property of the fluid.
-			continue
-		}
-		for _, ch := range out {
-			if ch.kind == "match" && sol.Linked(q, ch.q) {
-				continue next
-			}
 		}
 		var ch check
 		switch {
@@ -230,7 +255,6 @@ next:
 		ch.protoValue, _ = x.proto(q)
 		out = append(out, ch)
 	}
-	linkJoint(out)
 	return out, blocked, notes
 }
 
@@ -421,217 +445,6 @@ func sig3(v float64, unit string) string {
 	s := strconv.FormatFloat(v, 'g', 3, 64)
 	if unit != "" && unit != "1" {
 		s += " " + unit
-	}
-	return s
-}
-
-// kindWord names what an entry is, for a reason: a liquid, a gas, a solid.
-func kindWord(e materials.Entry) string {
-	if e.Kind == materials.Fluid {
-		if isGas(e) {
-			return "gas"
-		}
-		return "liquid"
-	}
-	return string(e.Kind)
-}
-
-// isGas tells a gas from a liquid by its density at default conditions:
-// below 100 kg/m³ (gases near atmospheric pressure are about 0.1–2 kg/m³,
-// liquids above about 600; common practice).
-func isGas(e materials.Entry) bool {
-	props, err := e.At(materials.Conditions{})
-	if err != nil {
-		return false
-	}
-	for _, pr := range props {
-		if pr.Quantity == "density" {
-			return pr.Value < 100
-		}
-	}
-	return false
-}
-
-// compatible reports whether entry e could stand in for candidate c: the
-// same kind, and for a fluid the same phase (no gas for a water tank).
-func compatible(c *Candidate2, e materials.Entry) bool {
-	if c.entry.Kind != e.Kind {
-		return false
-	}
-	return e.Kind != materials.Fluid || isGas(e) == isGas(c.entry)
-}
-
-// withEntry is the combination with a library entry, at its default
-// conditions, in place of one candidate: every given parameter is rebuilt
-// from the entry's own properties.
-func (x *combo) withEntry(role *Candidate2, e materials.Entry) (*combo, *Candidate2, bool) {
-	list, err := e.At(materials.Conditions{})
-	if err != nil {
-		return nil, nil, false
-	}
-	props := map[string]materials.Property{}
-	for _, pr := range list {
-		props[pr.Quantity] = pr
-	}
-	c2 := &Candidate2{Name: e.Name, Entry: e.Name, Role: role.Role, Props: props, entry: e}
-	med, mat := x.medium, x.material
-	if role == x.medium {
-		med = c2
-	} else {
-		mat = c2
-	}
-	y, err := x.plan.newComboDrawn(x.cas, med, mat, x.fac, x.axis, nil)
-	if err != nil {
-		return nil, nil, false
-	}
-	return y, c2, true
-}
-
-// entryChecks returns the checks an entry standing in for role must meet,
-// one per check of role, or false when the entry lacks a property.
-func (x *combo) entryChecks(role *Candidate2, e materials.Entry) ([]check, bool) {
-	var want []check
-	mine, _, _ := x.checks()
-	for _, ch := range mine {
-		if ch.cand == role {
-			want = append(want, ch)
-		}
-	}
-	if len(want) == 0 || !compatible(role, e) {
-		return nil, false
-	}
-	y, c2, ok := x.withEntry(role, e)
-	if !ok {
-		return nil, false
-	}
-	theirs, blocked, _ := y.checks()
-	if blocked != "" {
-		return nil, false
-	}
-	var out []check
-	for _, w := range want {
-		found := false
-		for _, ch := range theirs {
-			if ch.cand == c2 && ch.q == w.q && ch.kind == w.kind {
-				out, found = append(out, ch), true
-			}
-		}
-		if !found {
-			return nil, false
-		}
-	}
-	return out, true
-}
-
-// meets reports whether a check holds at ln kL (to rounding).
-func (x *combo) meets(ch check, ln float64) bool {
-	tol := x.plan.Settings.Tolerance
-	r := ch.req.at(ln)
-	return ch.ownHigh() >= r*(1-tol)*(1-1e-12) && ch.ownLow() <= r*(1+tol)*(1+1e-12)
-}
-
-// libraryMatches lists the library entries that could replace the
-// candidate supplying q at scale kL: every check of that candidate holds
-// with the entry's own properties, the given parameters rebuilt from them.
-func (x *combo) libraryMatches(q string, kL float64) []Match {
-	mine, _, _ := x.checks()
-	role := x.supplier(q)
-	if role == nil {
-		for _, ch := range mine {
-			if ch.kind == "match" && ch.cand != nil {
-				role = ch.cand
-				break
-			}
-		}
-	}
-	if role == nil {
-		return nil
-	}
-	ln := math.Log(kL)
-	var out []Match
-	for _, e := range x.plan.Library.Entries() {
-		checks, ok := x.entryChecks(role, e)
-		if !ok {
-			continue
-		}
-		all := true
-		for _, ch := range checks {
-			all = all && x.meets(ch, ln)
-		}
-		if !all {
-			continue
-		}
-		m := Match{Entry: e.Name, Conditions: "default conditions", Value: math.NaN()}
-		if rc, err := e.Resolve(materials.Conditions{}); err == nil && rc.String() != "" {
-			m.Conditions = rc.String()
-		}
-		if pr, err := e.Property(q, materials.Conditions{}); err == nil {
-			m.Value = pr.Value
-		}
-		if rm, tuned, ok := recipeMatch(checks, q, ln); tuned {
-			if !ok {
-				continue
-			}
-			m.Conditions, m.Value = rm.Conditions, rm.Value
-		}
-		out = append(out, m)
-	}
-	return out
-}
-
-// closestEntry names the library entry, of the candidate's kind, that
-// comes nearest to meeting the check at the scales the other limits allow.
-func (x *combo) closestEntry(ch check, others []uInterval) string {
-	if ch.cand == nil {
-		return ""
-	}
-	type found struct {
-		name          string
-		own, req, u   float64
-		margin        float64
-		reqDiffersOwn bool
-	}
-	var best *found
-	for _, e := range x.plan.Library.Entries() {
-		if e.Name == ch.cand.entry.Name {
-			continue // the candidate's own entry says nothing new
-		}
-		checks, ok := x.entryChecks(ch.cand, e)
-		if !ok {
-			continue
-		}
-		var lims []compiled
-		var mine check
-		for _, c := range checks {
-			for _, upper := range []bool{true, false} {
-				l, err := x.bandLimit(c, upper)
-				if err != nil {
-					return ""
-				}
-				lims = append(lims, l)
-			}
-			if c.q == ch.q {
-				mine = c
-			}
-		}
-		u, m := bestPoint(lims, others)
-		if best == nil || m > best.margin || (m == best.margin && e.Name < best.name) {
-			req := mine.req.at(u * math.Ln10)
-			best = &found{name: e.Name, own: mine.own, req: req, u: u, margin: m,
-				reqDiffersOwn: math.Abs(math.Log(req/ch.req.at(u*math.Ln10))) > 0.01}
-		}
-	}
-	if best == nil {
-		return ""
-	}
-	unit := quantityUnit(ch.q)
-	word := kindWord(ch.cand.entry)
-	if best.margin >= 0 {
-		return fmt.Sprintf("the library's %s %s meets it at %s (%s): add it as a candidate", word, best.name, Scale(math.Pow(10, best.u)), sig3(best.own, unit))
-	}
-	s := fmt.Sprintf("the closest %s in the library, %s, has %s", word, best.name, sig3(best.own, unit))
-	if best.reqDiffersOwn {
-		s += fmt.Sprintf(" (with its own properties it would need %s at %s)", sig3(best.req, unit), Scale(math.Pow(10, best.u)))
 	}
 	return s
 }

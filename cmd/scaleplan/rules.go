@@ -63,10 +63,11 @@ func rulesCommand() *cli.Command {
 			if err != nil {
 				return err
 			}
-			r, err := report.NewRulesReport(sol, given, length)
+			ev, err := feasibility.EvaluateRules(sol, given, length)
 			if err != nil {
 				return err
 			}
+			r := report.NewRulesReport(ev)
 			if err := r.Broken(); err != nil {
 				return err
 			}

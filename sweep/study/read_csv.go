@@ -80,30 +80,12 @@ func loadCSV(fsys fs.FS, dir, source, base string) (*Study, error) {
 // the file), and a quoted cell that runs over several lines and holds a
 // stray quote (a closing quote is probably missing).
 func readCSVSheet(f io.Reader, name string, r *sheetReader) {
-	// A file that says it is too large is refused before it is read.
-	if st, ok := f.(interface{ Stat() (fs.FileInfo, error) }); ok {
-		if fi, err := st.Stat(); err == nil && fi.Size() > maxFileBytes {
-			r.add(Cell{Sheet: r.sheet}, "%s is larger than %d MiB; a study sheet is far smaller", name, maxFileBytes>>20)
-			return
-		}
-	}
-	raw, err := io.ReadAll(io.LimitReader(f, maxFileBytes+1))
-	if err != nil {
-		r.add(Cell{Sheet: r.sheet}, "cannot read %s: %v", name, err)
+	raw, ok := readCSVBytes(f, name, r)
+	if !ok {
 		return
 	}
-	if len(raw) > maxFileBytes {
-		r.add(Cell{Sheet: r.sheet}, "%s is larger than %d MiB; a study sheet is far smaller", name, maxFileBytes>>20)
-		return
-	}
-	raw = bytes.TrimPrefix(raw, []byte("\xef\xbb\xbf"))
-	comma := byte(',')
-	head := raw
-	if i := bytes.IndexByte(head, '\n'); i >= 0 {
-		head = head[:i]
-	}
-	if bytes.IndexByte(head, ',') < 0 && bytes.IndexByte(head, ';') >= 0 {
-		comma = ';'
+	comma, decimalComma := csvSeparator(raw)
+	if decimalComma {
 		r.decimalComma = true // the separator of locales with a decimal comma
 	}
 	issues := quoteIssues(raw, comma)
@@ -134,20 +116,8 @@ func readCSVSheet(f io.Reader, name string, r *sheetReader) {
 		row += max(start-endLine, 1)
 		last, _ := cr.FieldPos(len(rec) - 1)
 		endLine = last + strings.Count(rec[len(rec)-1], "\n")
-		bad := false
-		for len(issues) > 0 && issues[0].line <= endLine {
-			is := issues[0]
-			issues = issues[1:]
-			if is.line < start {
-				continue
-			}
-			bad = true
-			if is.unclosed {
-				r.add(Cell{r.sheet, row, 0}, "malformed CSV line %d in %s: a quoted cell is never closed, so it runs to the end of the file: add the closing quote", is.line, name)
-			} else {
-				r.add(Cell{r.sheet, row, 0}, "malformed CSV line %d in %s: a quoted cell runs over several lines and holds a stray quote: check its quotes (a quote inside a quoted cell is written twice)", is.line, name)
-			}
-		}
+		var bad bool
+		issues, bad = r.quoteProblems(issues, start, endLine, row, name)
 		if bad {
 			if row == 1 {
 				return // no header to read the rest by
@@ -159,6 +129,61 @@ func readCSVSheet(f io.Reader, name string, r *sheetReader) {
 		}
 	}
 	r.end()
+}
+
+// readCSVBytes reads a CSV sheet whole, without a byte-order mark; ok is
+// false, the problem said, when it cannot be read or is too large (a file
+// that says it is too large is refused before it is read).
+func readCSVBytes(f io.Reader, name string, r *sheetReader) ([]byte, bool) {
+	if st, ok := f.(interface{ Stat() (fs.FileInfo, error) }); ok {
+		if fi, err := st.Stat(); err == nil && fi.Size() > maxFileBytes {
+			r.add(Cell{Sheet: r.sheet}, "%s is larger than %d MiB; a study sheet is far smaller", name, maxFileBytes>>20)
+			return nil, false
+		}
+	}
+	raw, err := io.ReadAll(io.LimitReader(f, maxFileBytes+1))
+	if err != nil {
+		r.add(Cell{Sheet: r.sheet}, "cannot read %s: %v", name, err)
+		return nil, false
+	}
+	if len(raw) > maxFileBytes {
+		r.add(Cell{Sheet: r.sheet}, "%s is larger than %d MiB; a study sheet is far smaller", name, maxFileBytes>>20)
+		return nil, false
+	}
+	return bytes.TrimPrefix(raw, []byte("\xef\xbb\xbf")), true
+}
+
+// csvSeparator is the separator of a CSV sheet: ';' when its first line
+// has semicolons and no comma (the locales with a decimal comma), else ','.
+func csvSeparator(raw []byte) (comma byte, decimalComma bool) {
+	head := raw
+	if i := bytes.IndexByte(head, '\n'); i >= 0 {
+		head = head[:i]
+	}
+	if bytes.IndexByte(head, ',') < 0 && bytes.IndexByte(head, ';') >= 0 {
+		return ';', true
+	}
+	return ',', false
+}
+
+// quoteProblems says the quoting mistakes of the record on file lines
+// start to endLine (spreadsheet row row), and returns the issues still to
+// come; bad is true when the record has one.
+func (r *sheetReader) quoteProblems(issues []quoteIssue, start, endLine, row int, name string) (rest []quoteIssue, bad bool) {
+	for len(issues) > 0 && issues[0].line <= endLine {
+		is := issues[0]
+		issues = issues[1:]
+		if is.line < start {
+			continue
+		}
+		bad = true
+		if is.unclosed {
+			r.add(Cell{r.sheet, row, 0}, "malformed CSV line %d in %s: a quoted cell is never closed, so it runs to the end of the file: add the closing quote", is.line, name)
+		} else {
+			r.add(Cell{r.sheet, row, 0}, "malformed CSV line %d in %s: a quoted cell runs over several lines and holds a stray quote: check its quotes (a quote inside a quoted cell is written twice)", is.line, name)
+		}
+	}
+	return issues, bad
 }
 
 // quoteIssue is a quoting mistake found by quoteIssues, on a 1-based line.

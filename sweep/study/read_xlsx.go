@@ -230,25 +230,13 @@ func scanSheetCells(part *zip.File, cols, nStrings int, kinds *cellKinds) ([]cel
 		case xml.StartElement:
 			switch t.Name.Local {
 			case "row":
-				row++
-				if r := attr(t, "r"); r != "" {
-					if v, err := strconv.Atoi(r); err == nil {
-						row = v
-					}
-				}
-				col = 0
+				row, col = rowNumber(t, row+1), 0
 			case "c":
-				col++
-				if r := attr(t, "r"); r != "" {
-					if c, rr, err := excelize.CellNameToCoordinates(r); err == nil {
-						col, row = c, rr
-					}
-				}
+				col, row = cellPosition(t, col+1, row)
 				if col > MaxColumns {
 					// Reading such rows costs time in proportion to the
 					// column; refuse the sheet instead.
-					cell, _ := excelize.CoordinatesToCellName(min(col, excelize.MaxColumns), max(row, 1))
-					return append(found, cellIssue{place{row, 0}, fmt.Sprintf("the sheet has a cell at %s, beyond column %s: a study sheet uses its first %d columns; delete the cells far to the right", cell, ColumnLetters(MaxColumns), len(Columns["Strategies"]))}), errTooWide
+					return append(found, tooWideIssue(row, col)), errTooWide
 				}
 				inCell, hasF, hasV, typ, value = true, false, false, attr(t, "t"), ""
 				if col <= cols && row <= MaxRows {
@@ -275,21 +263,57 @@ func scanSheetCells(part *zip.File, cols, nStrings int, kinds *cellKinds) ([]cel
 					continue
 				}
 				inCell = false
-				at := place{row, col}
-				value = strings.TrimSpace(value)
-				switch {
-				case hasF && !hasV:
-					found = append(found, cellIssue{at, "formula without a cached value: open and save the workbook in a spreadsheet program, or type the value"})
-				case typ == "e":
-					found = append(found, cellIssue{at, fmt.Sprintf("the cell holds the spreadsheet error %s: correct it, or type the value", value)})
-				case typ == "s" && hasV:
-					if i, err := strconv.Atoi(value); err != nil || i < 0 || i >= nStrings {
-						found = append(found, cellIssue{at, "the cell refers to a text that the workbook does not hold (the workbook is damaged): type the value again"})
-					}
+				if why := cellProblem(typ, strings.TrimSpace(value), hasF, hasV, nStrings); why != "" {
+					found = append(found, cellIssue{place{row, col}, why})
 				}
 			}
 		}
 	}
+}
+
+// rowNumber is the number of the row element t: its r attribute, else
+// next (the row after the one before).
+func rowNumber(t xml.StartElement, next int) int {
+	if r := attr(t, "r"); r != "" {
+		if v, err := strconv.Atoi(r); err == nil {
+			return v
+		}
+	}
+	return next
+}
+
+// cellPosition is the column and row of the cell element t: its r
+// attribute, else the next column in the current row.
+func cellPosition(t xml.StartElement, nextCol, row int) (int, int) {
+	if r := attr(t, "r"); r != "" {
+		if c, rr, err := excelize.CellNameToCoordinates(r); err == nil {
+			return c, rr
+		}
+	}
+	return nextCol, row
+}
+
+// tooWideIssue is the problem of a sheet with a cell beyond MaxColumns.
+func tooWideIssue(row, col int) cellIssue {
+	cell, _ := excelize.CoordinatesToCellName(min(col, excelize.MaxColumns), max(row, 1))
+	return cellIssue{place{row, 0}, fmt.Sprintf("the sheet has a cell at %s, beyond column %s: a study sheet uses its first %d columns; delete the cells far to the right", cell, ColumnLetters(MaxColumns), len(Columns["Strategies"]))}
+}
+
+// cellProblem says what is wrong with a cell of type typ and cached value
+// value (trimmed), "" when nothing is: a formula without a cached value, a
+// spreadsheet error, or a shared text the workbook does not hold.
+func cellProblem(typ, value string, hasF, hasV bool, nStrings int) string {
+	switch {
+	case hasF && !hasV:
+		return "formula without a cached value: open and save the workbook in a spreadsheet program, or type the value"
+	case typ == "e":
+		return fmt.Sprintf("the cell holds the spreadsheet error %s: correct it, or type the value", value)
+	case typ == "s" && hasV:
+		if i, err := strconv.Atoi(value); err != nil || i < 0 || i >= nStrings {
+			return "the cell refers to a text that the workbook does not hold (the workbook is damaged): type the value again"
+		}
+	}
+	return ""
 }
 
 // countStrings counts the shared strings of a workbook (0 without them).
