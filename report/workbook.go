@@ -185,7 +185,7 @@ func writeWorkbook(ctx context.Context, w io.Writer, res *sweep.Result, maps ...
 	if err := writeLimits(f, res, bold); err != nil {
 		return err
 	}
-	if err := writeRequirements(f, res, bold); err != nil {
+	if err := writeRequirements(f, res, bold, rows); err != nil {
 		return err
 	}
 	if err := writeFit(f, res, bold); err != nil {
@@ -481,15 +481,11 @@ func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *swee
 	// The number formats of the scales are styles, made now, in row order.
 	kL := make([]rowCell, 0, nrows)
 	for gi := 0; gi < len(grid); gi += step {
-		c, err := s.sigCell(sigNum(grid[gi]))
+		c, err := s.sigRowCell(grid[gi])
 		if err != nil {
 			return err
 		}
-		if v, ok := c.(excelize.Cell); ok {
-			kL = append(kL, numCell(v.StyleID, v.Value.(float64)))
-		} else {
-			kL = append(kL, textCell(""))
-		}
+		kL = append(kL, c)
 	}
 	part, err := sheetPart(f, name)
 	if err != nil {
@@ -577,8 +573,9 @@ func requirementLabel(r sweep.Requirement) string {
 }
 
 // writeRequirements writes the capability each combination needs at each
-// scale: scale down, capabilities across.
-func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
+// scale: scale down, capabilities across. Its rows are written into the
+// archive when the workbook is saved (see rowsFunc), by part name in rows.
+func writeRequirements(f *excelize.File, res *sweep.Result, bold int, rows map[string]rowsFunc) error {
 	var labels []string
 	index := map[string]int{}
 	for _, sr := range res.Strategies {
@@ -599,42 +596,71 @@ func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
 	}
 	grid := res.Plan.Grid
 	step := max(1, len(grid)/200)
-	rows := 1
+	nrows := 1
 	for _, sr := range res.Strategies {
 		for _, c := range sr.Combos {
 			if len(c.Requirements) > 0 {
-				rows += (len(grid) + step - 1) / step
+				nrows += (len(grid) + step - 1) / step
 			}
 		}
 	}
-	s, err := newSheetSized(f, "Requirements", header, widths, bold, rows, len(header))
+	s, err := newSheetSized(f, "Requirements", header, widths, bold, nrows, len(header))
 	if err != nil {
 		return err
 	}
-	for _, sr := range res.Strategies {
-		for _, c := range sr.Combos {
-			if len(c.Requirements) == 0 {
-				continue
-			}
-			cols := make([]int, len(c.Requirements))
-			for k, r := range c.Requirements {
-				cols[k] = index[requirementLabel(r)]
-			}
-			for i := 0; i < len(grid); i += step {
-				row := []any{sr.Name, c.Case, Candidate(c), sweep.Scale(grid[i]), sig(grid[i])}
-				vals := make([]any, len(labels))
-				for k := range vals {
-					vals[k] = ""
+	// each calls add with every row. The first pass makes the number
+	// formats' styles, in row order; the second, when the workbook is
+	// saved, finds them made.
+	each := func(add func([]rowCell) error) error {
+		row := make([]rowCell, 0, len(header))
+		vals := make([]float64, len(labels))
+		for _, sr := range res.Strategies {
+			for _, c := range sr.Combos {
+				if len(c.Requirements) == 0 {
+					continue
 				}
+				cols := make([]int, len(c.Requirements))
 				for k, r := range c.Requirements {
-					vals[cols[k]] = sig(r.Values[i])
+					cols[k] = index[requirementLabel(r)]
 				}
-				if err := s.add(append(row, vals...)...); err != nil {
-					return err
+				for i := 0; i < len(grid); i += step {
+					row = append(row[:0], textCell(sr.Name), textCell(c.Case), textCell(Candidate(c)), textCell(sweep.Scale(grid[i])))
+					for k := range vals {
+						vals[k] = math.NaN() // an empty cell
+					}
+					for k, r := range c.Requirements {
+						vals[cols[k]] = r.Values[i]
+					}
+					for _, x := range append([]float64{grid[i]}, vals...) {
+						cell, err := s.sigRowCell(x)
+						if err != nil {
+							return err
+						}
+						row = append(row, cell)
+					}
+					if err := add(row); err != nil {
+						return err
+					}
 				}
 			}
 		}
+		return nil
 	}
+	if err := each(func([]rowCell) error { return nil }); err != nil {
+		return err
+	}
+	part, err := sheetPart(f, "Requirements")
+	if err != nil {
+		return err
+	}
+	rows[part] = func(w io.Writer) error {
+		rw := newRowWriter(w, 2)
+		if err := each(func(row []rowCell) error { return rw.add(row...) }); err != nil {
+			return err
+		}
+		return rw.flush()
+	}
+	s.row = nrows
 	return s.close(true)
 }
 

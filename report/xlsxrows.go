@@ -229,3 +229,21 @@ func escapeCodeUnits(s string) string {
 	}
 	return result.String()
 }
+
+// sigRowCell is the cell of sig(x) for a rowWriter: x to four significant
+// figures (see sigCell), or empty when x is not a number.
+func (s *sheetWriter) sigRowCell(x float64) (rowCell, error) {
+	if math.IsNaN(x) || math.IsInf(x, 0) {
+		return textCell(""), nil
+	}
+	c, err := s.sigCell(sigNum(x))
+	if err != nil {
+		return rowCell{}, err
+	}
+	if v, ok := c.(excelize.Cell); ok {
+		if f, ok := v.Value.(float64); ok {
+			return numCell(v.StyleID, f), nil
+		}
+	}
+	return textCell(""), nil
+}
