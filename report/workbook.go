@@ -173,8 +173,9 @@ func writeWorkbook(ctx context.Context, w io.Writer, res *sweep.Result, maps ...
 	if err != nil {
 		return err
 	}
+	rows := map[string]rowsFunc{}
 	for i, sr := range res.Strategies {
-		if err := writeMap(ctx, f, res, sr, i, bold, bins); err != nil {
+		if err := writeMap(ctx, f, res, sr, i, bold, bins, rows); err != nil {
 			return err
 		}
 	}
@@ -184,7 +185,7 @@ func writeWorkbook(ctx context.Context, w io.Writer, res *sweep.Result, maps ...
 	if err := writeLimits(f, res, bold); err != nil {
 		return err
 	}
-	if err := writeRequirements(f, res, bold); err != nil {
+	if err := writeRequirements(f, res, bold, rows); err != nil {
 		return err
 	}
 	if err := writeFit(f, res, bold); err != nil {
@@ -201,7 +202,7 @@ func writeWorkbook(ctx context.Context, w io.Writer, res *sweep.Result, maps ...
 	}
 	// The archive is written straight to w, parts compressed once, in name
 	// order (see xlsxZip).
-	f.SetZipWriter(func(io.Writer) excelize.ZipWriter { return newXLSXZip(w) })
+	f.SetZipWriter(func(io.Writer) excelize.ZipWriter { return &xlsxZip{w: w, rows: rows} })
 	return f.Write(io.Discard)
 }
 
@@ -444,8 +445,9 @@ func mapSheetName(i int, name string) string {
 
 // writeMap writes the margin of every combination of a strategy at every
 // grid scale: scale down, combinations across, with a colour scale and the
-// limit that gives each margin.
-func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, bold int, bins []int) error {
+// limit that gives each margin. Its rows are written into the archive
+// when the workbook is saved (see rowsFunc), by part name in rows.
+func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *sweep.StrategyResult, i, bold int, bins []int, rows map[string]rowsFunc) error {
 	grid := res.Plan.Grid
 	header := []string{"scale (1:x)", "kL [-]"}
 	widths := []float64{12, 10}
@@ -462,11 +464,11 @@ func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *swee
 	if len(grid)+2 > MaxSheetRows {
 		step = (len(grid) + MaxSheetRows - 3) / (MaxSheetRows - 3)
 	}
-	rows := 1 + (len(grid)+step-1)/step
+	nrows := 1 + (len(grid)+step-1)/step
 	if step > 1 {
-		rows++ // the note on thinning
+		nrows++ // the note on thinning
 	}
-	s, err := newSheetSized(f, name, header, widths, bold, rows, len(header))
+	s, err := newSheetSized(f, name, header, widths, bold, nrows, len(header))
 	if err != nil {
 		return err
 	}
@@ -476,36 +478,54 @@ func writeMap(ctx context.Context, f *excelize.File, res *sweep.Result, sr *swee
 	for ci, c := range sr.Combos {
 		names[ci] = newLimitNames(c)
 	}
-	row := make([]any, 0, len(header))
+	// The number formats of the scales are styles, made now, in row order.
+	kL := make([]rowCell, 0, nrows)
 	for gi := 0; gi < len(grid); gi += step {
-		if gi/step%rowsPerCheck == 0 {
-			if err := ctx.Err(); err != nil {
+		c, err := s.sigRowCell(grid[gi])
+		if err != nil {
+			return err
+		}
+		kL = append(kL, c)
+	}
+	part, err := sheetPart(f, name)
+	if err != nil {
+		return err
+	}
+	rows[part] = func(w io.Writer) error {
+		rw := newRowWriter(w, 2)
+		row := make([]rowCell, 0, len(header))
+		for gi := 0; gi < len(grid); gi += step {
+			if gi/step%rowsPerCheck == 0 {
+				if err := ctx.Err(); err != nil {
+					return err
+				}
+			}
+			row = append(row[:0], textCell(sweep.Scale(grid[gi])), kL[gi/step])
+			for ci, c := range sr.Combos {
+				if c.Margins == nil {
+					row = append(row, textCell(""), textCell(c.Err))
+					continue
+				}
+				m := c.Margins[gi]
+				lim := textCell(names[ci].of(c.Limiting[gi], m < 0 && !math.IsInf(m, 0)))
+				if math.IsInf(m, 0) {
+					row = append(row, textCell(""), lim)
+					continue
+				}
+				row = append(row, numCell(bins[marginBin(m)], math.Round(m*1000)/1000), lim)
+			}
+			if err := rw.add(row...); err != nil {
 				return err
 			}
 		}
-		row = append(row[:0], sweep.Scale(grid[gi]), sig(grid[gi]))
-		for ci, c := range sr.Combos {
-			if c.Margins == nil {
-				row = append(row, "", c.Err)
-				continue
+		if step > 1 {
+			if err := rw.add(textCell(fmt.Sprintf("grid thinned to every %d-th point to fit the spreadsheet row limit", step))); err != nil {
+				return err
 			}
-			m := c.Margins[gi]
-			lim := names[ci].of(c.Limiting[gi], m < 0 && !math.IsInf(m, 0))
-			if math.IsInf(m, 0) {
-				row = append(row, "", lim)
-				continue
-			}
-			row = append(row, excelize.Cell{StyleID: bins[marginBin(m)], Value: math.Round(m*1000) / 1000}, lim)
 		}
-		if err := s.add(row...); err != nil {
-			return err
-		}
+		return rw.flush()
 	}
-	if step > 1 {
-		if err := s.add(fmt.Sprintf("grid thinned to every %d-th point to fit the spreadsheet row limit", step)); err != nil {
-			return err
-		}
-	}
+	s.row = nrows
 	return s.close(false)
 }
 
@@ -553,8 +573,9 @@ func requirementLabel(r sweep.Requirement) string {
 }
 
 // writeRequirements writes the capability each combination needs at each
-// scale: scale down, capabilities across.
-func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
+// scale: scale down, capabilities across. Its rows are written into the
+// archive when the workbook is saved (see rowsFunc), by part name in rows.
+func writeRequirements(f *excelize.File, res *sweep.Result, bold int, rows map[string]rowsFunc) error {
 	var labels []string
 	index := map[string]int{}
 	for _, sr := range res.Strategies {
@@ -575,42 +596,71 @@ func writeRequirements(f *excelize.File, res *sweep.Result, bold int) error {
 	}
 	grid := res.Plan.Grid
 	step := max(1, len(grid)/200)
-	rows := 1
+	nrows := 1
 	for _, sr := range res.Strategies {
 		for _, c := range sr.Combos {
 			if len(c.Requirements) > 0 {
-				rows += (len(grid) + step - 1) / step
+				nrows += (len(grid) + step - 1) / step
 			}
 		}
 	}
-	s, err := newSheetSized(f, "Requirements", header, widths, bold, rows, len(header))
+	s, err := newSheetSized(f, "Requirements", header, widths, bold, nrows, len(header))
 	if err != nil {
 		return err
 	}
-	for _, sr := range res.Strategies {
-		for _, c := range sr.Combos {
-			if len(c.Requirements) == 0 {
-				continue
-			}
-			cols := make([]int, len(c.Requirements))
-			for k, r := range c.Requirements {
-				cols[k] = index[requirementLabel(r)]
-			}
-			for i := 0; i < len(grid); i += step {
-				row := []any{sr.Name, c.Case, Candidate(c), sweep.Scale(grid[i]), sig(grid[i])}
-				vals := make([]any, len(labels))
-				for k := range vals {
-					vals[k] = ""
+	// each calls add with every row. The first pass makes the number
+	// formats' styles, in row order; the second, when the workbook is
+	// saved, finds them made.
+	each := func(add func([]rowCell) error) error {
+		row := make([]rowCell, 0, len(header))
+		vals := make([]float64, len(labels))
+		for _, sr := range res.Strategies {
+			for _, c := range sr.Combos {
+				if len(c.Requirements) == 0 {
+					continue
 				}
+				cols := make([]int, len(c.Requirements))
 				for k, r := range c.Requirements {
-					vals[cols[k]] = sig(r.Values[i])
+					cols[k] = index[requirementLabel(r)]
 				}
-				if err := s.add(append(row, vals...)...); err != nil {
-					return err
+				for i := 0; i < len(grid); i += step {
+					row = append(row[:0], textCell(sr.Name), textCell(c.Case), textCell(Candidate(c)), textCell(sweep.Scale(grid[i])))
+					for k := range vals {
+						vals[k] = math.NaN() // an empty cell
+					}
+					for k, r := range c.Requirements {
+						vals[cols[k]] = r.Values[i]
+					}
+					for _, x := range append([]float64{grid[i]}, vals...) {
+						cell, err := s.sigRowCell(x)
+						if err != nil {
+							return err
+						}
+						row = append(row, cell)
+					}
+					if err := add(row); err != nil {
+						return err
+					}
 				}
 			}
 		}
+		return nil
 	}
+	if err := each(func([]rowCell) error { return nil }); err != nil {
+		return err
+	}
+	part, err := sheetPart(f, "Requirements")
+	if err != nil {
+		return err
+	}
+	rows[part] = func(w io.Writer) error {
+		rw := newRowWriter(w, 2)
+		if err := each(func(row []rowCell) error { return rw.add(row...) }); err != nil {
+			return err
+		}
+		return rw.flush()
+	}
+	s.row = nrows
 	return s.close(true)
 }
 

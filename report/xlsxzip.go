@@ -5,6 +5,7 @@ import (
 	"bytes"
 	"compress/flate"
 	"errors"
+	"fmt"
 	"hash"
 	"hash/crc32"
 	"io"
@@ -45,6 +46,9 @@ type xlsxZip struct {
 	parts []*zipPart
 	cur   *zipPart
 	fw    *flate.Writer
+	// rows are the rows of sheets written straight into their part, by
+	// part name (see rowsFunc); each is used once.
+	rows map[string]rowsFunc
 }
 
 // zipPart is one part of the archive.
@@ -59,6 +63,9 @@ type zipPart struct {
 	hold    *bytes.Buffer
 	fix     func([]byte) []byte
 	decided bool // a sheet: whether its dimension needs fixing is known
+	// rows writes the sheet's rows before its end of sheet data (the part
+	// is then held, only its frame, until complete).
+	rows rowsFunc
 }
 
 func newXLSXZip(w io.Writer) *xlsxZip { return &xlsxZip{w: w} }
@@ -73,6 +80,9 @@ func (z *xlsxZip) Create(name string) (io.Writer, error) {
 	switch {
 	case name == "[Content_Types].xml":
 		p.hold, p.fix, p.decided = new(bytes.Buffer), sortDefaults, true
+	case z.rows[name] != nil:
+		p.hold, p.decided, p.rows = new(bytes.Buffer), true, z.rows[name]
+		delete(z.rows, name)
 	case sheetPartRE.MatchString(name):
 		p.hold = new(bytes.Buffer)
 	case strings.HasPrefix(lower, "xl/media/") && (strings.HasSuffix(lower, ".png") || strings.HasSuffix(lower, ".jpeg") || strings.HasSuffix(lower, ".jpg")):
@@ -162,7 +172,11 @@ func (z *xlsxZip) finish() error {
 				return err
 			}
 		}
-		if err := z.emit(p, b); err != nil {
+		if p.rows != nil {
+			if err := z.emitRows(p, b); err != nil {
+				return err
+			}
+		} else if err := z.emit(p, b); err != nil {
 			return err
 		}
 	}
@@ -171,6 +185,33 @@ func (z *xlsxZip) finish() error {
 	}
 	return nil
 }
+
+// sheetDataEnd ends a sheet's rows.
+var sheetDataEnd = []byte("</sheetData>")
+
+// emitRows compresses a sheet's frame b with its rows written in before
+// the end of its sheet data.
+func (z *xlsxZip) emitRows(p *zipPart, b []byte) error {
+	i := bytes.Index(b, sheetDataEnd)
+	if i < 0 || bytes.Count(b, sheetDataEnd) != 1 {
+		return fmt.Errorf("workbook archive: %s: no single end of sheet data to write the rows before", p.name)
+	}
+	if err := z.emit(p, b[:i]); err != nil {
+		return err
+	}
+	if err := p.rows(emitter{z, p}); err != nil {
+		return err
+	}
+	return z.emit(p, b[i:])
+}
+
+// emitter writes to a streaming part.
+type emitter struct {
+	z *xlsxZip
+	p *zipPart
+}
+
+func (e emitter) Write(b []byte) (int, error) { return len(b), e.z.emit(e.p, b) }
 
 // AddFS is part of the library's archive interface; the workbook never
 // adds a file system.
@@ -183,6 +224,9 @@ func (z *xlsxZip) AddFS(fs.FS) error {
 func (z *xlsxZip) Close() error {
 	if err := z.finish(); err != nil {
 		return err
+	}
+	for name := range z.rows {
+		return fmt.Errorf("workbook archive: the sheet part %s was never written", name)
 	}
 	parts := append([]*zipPart(nil), z.parts...)
 	sort.SliceStable(parts, func(i, j int) bool { return zipOrder(parts[i].name) < zipOrder(parts[j].name) })
