@@ -20,7 +20,7 @@ func TestRowWriterMatchesStreamWriter(t *testing.T) {
 	long := strings.Repeat("é", maxCellChars+5)
 	rows := [][]rowCell{
 		{textCell("1:25"), numCell(3, 25), numCell(0, 0.1), numCell(7, -1.234), textCell("")},
-		{numCell(0, 1.0/3), numCell(0, 123456789012345678), numCell(0, 1e-20), numCell(0, math.MaxFloat64), numCell(2, -0.0)},
+		{numCell(0, 1.0/3), numCell(0, 123456789012345678), numCell(0, 1e-20), numCell(0, math.MaxFloat64), numCell(2, math.Copysign(0, -1))},
 		{textCell(" leading"), textCell("trailing\t"), textCell("a&b<c>\"'\nline"), textCell("_x0041_ and _x005F_x0041_ and _xZZZZ_"), textCell("infeasible: limit")},
 		{numCell(4, math.NaN()), numCell(0, math.Inf(1)), textCell(long), textCell("∆ κ 日本")},
 	}

@@ -68,8 +68,6 @@ type zipPart struct {
 	rows rowsFunc
 }
 
-func newXLSXZip(w io.Writer) *xlsxZip { return &xlsxZip{w: w} }
-
 // Create starts a part; the previous one is complete.
 func (z *xlsxZip) Create(name string) (io.Writer, error) {
 	if err := z.finish(); err != nil {
