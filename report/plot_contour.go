@@ -53,42 +53,7 @@ type IsoMeasure struct {
 // one when it has axis data, else the one whose margin peaks highest.
 func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 	p := res.Plan
-	// The margin rows are computed on demand, for the combinations drawn.
-	rowsOf := func(c *sweep.ComboResult) [][]float64 {
-		if c == nil {
-			return nil
-		}
-		rows := c.AxisMarginRows()
-		if len(rows) < 2 || len(rows) != len(p.AxisValues) {
-			return nil
-		}
-		for _, row := range rows {
-			if len(row) != len(p.Grid) {
-				return nil
-			}
-		}
-		return rows
-	}
-	var pickC *sweep.ComboResult
-	pickRows := rowsOf(sr.Best)
-	if pickRows != nil {
-		pickC = sr.Best
-	} else {
-		// The combination that comes closest to feasible; its rows are
-		// swept again only once it is chosen.
-		bestPeak := math.Inf(-1)
-		for _, c := range sr.Combos {
-			if c == nil || len(c.AxisWindows) < 2 && len(c.AxisMargins) < 2 {
-				continue
-			}
-			if pk := c.AxisMarginPeak(); pickC == nil || pk > bestPeak {
-				pickC, bestPeak = c, pk
-			}
-		}
-		if pickRows = rowsOf(pickC); pickRows == nil {
-			pickC = nil
-		}
-	}
+	pickC, pickRows := contourCombo(p, sr)
 	if pickC == nil {
 		return nil
 	}
@@ -101,88 +66,9 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 		cm.YLog = cm.YLog && v > 0
 	}
 	cm.Edges = windowEdgeLines(pickC.AxisWindows, p.AxisValues, yi)
-	// Thin the rows like the columns: each kept row takes the smallest
-	// margin of the rows it stands for.
-	cols := make([][]float64, len(pickRows))
-	for j, row := range pickRows {
-		cols[j] = thinMargins(row, xi)
-	}
-	cm.Z = make([][]float64, len(yi))
-	for j := range cm.Z {
-		cm.Z[j] = make([]float64, len(xi))
-	}
-	col := make([]float64, len(cols))
-	for i := range xi {
-		for j := range cols {
-			col[j] = cols[j][i]
-		}
-		for j, v := range thinMargins(col, yi) {
-			cm.Z[j][i] = v
-		}
-	}
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, row := range cm.Z {
-		for _, v := range row {
-			v = clampMargin(v)
-			if !math.IsNaN(v) {
-				lo, hi = math.Min(lo, v), math.Max(hi, v)
-			}
-		}
-	}
-	for _, e := range MarginEdges {
-		if e == 0 || (e > lo && e < hi) {
-			cm.Levels = append(cm.Levels, e)
-		}
-	}
-	measures := pickC.AxisMeasureRows()
-	names := make([]string, 0, len(measures))
-	for n := range measures {
-		names = append(names, n)
-	}
-	sort.Strings(names)
-	units := map[string]string{}
-	for _, m := range p.Measures {
-		units[m.Name] = m.Unit.Text
-	}
-	for _, n := range names {
-		rows := measures[n]
-		if len(rows) != len(p.AxisValues) {
-			continue
-		}
-		im := IsoMeasure{Name: n, Unit: units[n], LogZ: make([][]float64, len(yi))}
-		mlo, mhi := math.Inf(1), math.Inf(-1)
-		for j, yj := range yi {
-			im.LogZ[j] = make([]float64, len(xi))
-			for i, xk := range xi {
-				v := rows[yj][xk]
-				if v > 0 && !math.IsInf(v, 0) {
-					im.LogZ[j][i] = math.Log10(v)
-					mlo, mhi = math.Min(mlo, im.LogZ[j][i]), math.Max(mhi, im.LogZ[j][i])
-				} else {
-					im.LogZ[j][i] = math.NaN()
-				}
-			}
-		}
-		// Iso-lines at 1, 2 and 5 times the powers of ten inside the range,
-		// at most three of them.
-		for d := math.Floor(mlo); d <= math.Ceil(mhi); d++ {
-			for _, k := range []float64{1, 2, 5} {
-				if l := d + math.Log10(k); l > mlo && l < mhi {
-					im.Levels = append(im.Levels, math.Pow(10, l))
-				}
-			}
-		}
-		for len(im.Levels) > 3 {
-			var kept []float64
-			for i := 0; i < len(im.Levels); i += 2 {
-				kept = append(kept, im.Levels[i])
-			}
-			im.Levels = kept
-		}
-		if len(im.Levels) > 0 {
-			cm.Iso = append(cm.Iso, im)
-		}
-	}
+	cm.Z = thinMarginGrid(pickRows, xi, yi)
+	cm.Levels = marginLevels(cm.Z)
+	cm.Iso = isoMeasures(p, pickC, xi, yi)
 	return cm
 }
 
