@@ -332,11 +332,6 @@ func isolines(u, v []float64, z [][]float64, level float64) [][]contourPoint {
 	if nx < 2 || ny < 2 {
 		return nil
 	}
-	type seg struct{ a, b int } // edge ids
-	// Edge ids: 2·(j·nx+i) for the edge from (i,j) to (i+1,j), and
-	// 2·(j·nx+i)+1 for the edge from (i,j) to (i,j+1).
-	hEdge := func(i, j int) int { return 2 * (j*nx + i) }
-	vEdge := func(i, j int) int { return 2*(j*nx+i) + 1 }
 	point := map[int]contourPoint{}
 	cross := func(id int) contourPoint {
 		if q, ok := point[id]; ok {
@@ -355,94 +350,8 @@ func isolines(u, v []float64, z [][]float64, level float64) [][]contourPoint {
 		point[id] = q
 		return q
 	}
-	var segs []seg
-	for j := 0; j < ny-1; j++ {
-		for i := 0; i < nx-1; i++ {
-			z00, z10, z11, z01 := z[j][i], z[j][i+1], z[j+1][i+1], z[j+1][i]
-			if math.IsNaN(z00) || math.IsNaN(z10) || math.IsNaN(z11) || math.IsNaN(z01) {
-				continue
-			}
-			in := func(x float64) int {
-				if x >= level {
-					return 1
-				}
-				return 0
-			}
-			code := in(z00) | in(z10)<<1 | in(z11)<<2 | in(z01)<<3
-			bottom, right, top, left := hEdge(i, j), vEdge(i+1, j), hEdge(i, j+1), vEdge(i, j)
-			switch code {
-			case 0, 15:
-			case 1, 14:
-				segs = append(segs, seg{left, bottom})
-			case 2, 13:
-				segs = append(segs, seg{bottom, right})
-			case 3, 12:
-				segs = append(segs, seg{left, right})
-			case 4, 11:
-				segs = append(segs, seg{right, top})
-			case 6, 9:
-				segs = append(segs, seg{bottom, top})
-			case 7, 8:
-				segs = append(segs, seg{left, top})
-			case 5, 10:
-				centre := (z00 + z10 + z11 + z01) / 4
-				// Corners 00 and 11 agree; the centre says whether they
-				// join across the cell.
-				joined := (centre >= level) == (code == 5)
-				if joined {
-					segs = append(segs, seg{left, top}, seg{bottom, right})
-				} else {
-					segs = append(segs, seg{left, bottom}, seg{right, top})
-				}
-			}
-		}
-	}
-	at := map[int][]int{}
-	for k, s := range segs {
-		at[s.a] = append(at[s.a], k)
-		at[s.b] = append(at[s.b], k)
-	}
-	used := make([]bool, len(segs))
-	next := func(edge, from int) (int, bool) {
-		for _, k := range at[edge] {
-			if k != from && !used[k] {
-				return k, true
-			}
-		}
-		return 0, false
-	}
 	var lines [][]contourPoint
-	for k := range segs {
-		if used[k] {
-			continue
-		}
-		used[k] = true
-		// walk follows the segments joined end to end from edge e of
-		// segment k and returns the edges it passes.
-		walk := func(e int) []int {
-			var out []int
-			for cur := k; ; {
-				n, ok := next(e, cur)
-				if !ok {
-					return out
-				}
-				used[n] = true
-				if segs[n].a == e {
-					e = segs[n].b
-				} else {
-					e = segs[n].a
-				}
-				out = append(out, e)
-				cur = n
-			}
-		}
-		fwd := append([]int{segs[k].a, segs[k].b}, walk(segs[k].b)...)
-		back := walk(segs[k].a)
-		ids := make([]int, 0, len(back)+len(fwd))
-		for b := len(back) - 1; b >= 0; b-- {
-			ids = append(ids, back[b])
-		}
-		ids = append(ids, fwd...)
+	for _, ids := range joinSegments(cellSegments(z, nx, ny, level)) {
 		line := make([]contourPoint, len(ids))
 		for m, id := range ids {
 			line[m] = cross(id)

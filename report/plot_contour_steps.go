@@ -162,3 +162,115 @@ func isoLevels(mlo, mhi float64) []float64 {
 	}
 	return levels
 }
+
+// The steps of isolines.
+
+// isoSeg is a piece of a contour line across one grid cell, from edge a to
+// edge b (edge ids as in cellSegments).
+type isoSeg struct{ a, b int }
+
+// cellSegments marches the squares of the nx × ny grid z and returns the
+// segments where z crosses level, cell by cell in the order of the grid.
+func cellSegments(z [][]float64, nx, ny int, level float64) []isoSeg {
+	// Edge ids: 2·(j·nx+i) for the edge from (i,j) to (i+1,j), and
+	// 2·(j·nx+i)+1 for the edge from (i,j) to (i,j+1).
+	hEdge := func(i, j int) int { return 2 * (j*nx + i) }
+	vEdge := func(i, j int) int { return 2*(j*nx+i) + 1 }
+	var segs []isoSeg
+	for j := 0; j < ny-1; j++ {
+		for i := 0; i < nx-1; i++ {
+			z00, z10, z11, z01 := z[j][i], z[j][i+1], z[j+1][i+1], z[j+1][i]
+			if math.IsNaN(z00) || math.IsNaN(z10) || math.IsNaN(z11) || math.IsNaN(z01) {
+				continue
+			}
+			in := func(x float64) int {
+				if x >= level {
+					return 1
+				}
+				return 0
+			}
+			code := in(z00) | in(z10)<<1 | in(z11)<<2 | in(z01)<<3
+			bottom, right, top, left := hEdge(i, j), vEdge(i+1, j), hEdge(i, j+1), vEdge(i, j)
+			switch code {
+			case 0, 15:
+			case 1, 14:
+				segs = append(segs, isoSeg{left, bottom})
+			case 2, 13:
+				segs = append(segs, isoSeg{bottom, right})
+			case 3, 12:
+				segs = append(segs, isoSeg{left, right})
+			case 4, 11:
+				segs = append(segs, isoSeg{right, top})
+			case 6, 9:
+				segs = append(segs, isoSeg{bottom, top})
+			case 7, 8:
+				segs = append(segs, isoSeg{left, top})
+			case 5, 10:
+				centre := (z00 + z10 + z11 + z01) / 4
+				// Corners 00 and 11 agree; the centre says whether they
+				// join across the cell.
+				joined := (centre >= level) == (code == 5)
+				if joined {
+					segs = append(segs, isoSeg{left, top}, isoSeg{bottom, right})
+				} else {
+					segs = append(segs, isoSeg{left, bottom}, isoSeg{right, top})
+				}
+			}
+		}
+	}
+	return segs
+}
+
+// joinSegments joins the segments end to end into lines, each given by
+// the edges it passes, in the order of the segments.
+func joinSegments(segs []isoSeg) [][]int {
+	at := map[int][]int{}
+	for k, s := range segs {
+		at[s.a] = append(at[s.a], k)
+		at[s.b] = append(at[s.b], k)
+	}
+	used := make([]bool, len(segs))
+	next := func(edge, from int) (int, bool) {
+		for _, k := range at[edge] {
+			if k != from && !used[k] {
+				return k, true
+			}
+		}
+		return 0, false
+	}
+	var lines [][]int
+	for k := range segs {
+		if used[k] {
+			continue
+		}
+		used[k] = true
+		// walk follows the segments joined end to end from edge e of
+		// segment k and returns the edges it passes.
+		walk := func(e int) []int {
+			var out []int
+			for cur := k; ; {
+				n, ok := next(e, cur)
+				if !ok {
+					return out
+				}
+				used[n] = true
+				if segs[n].a == e {
+					e = segs[n].b
+				} else {
+					e = segs[n].a
+				}
+				out = append(out, e)
+				cur = n
+			}
+		}
+		fwd := append([]int{segs[k].a, segs[k].b}, walk(segs[k].b)...)
+		back := walk(segs[k].a)
+		ids := make([]int, 0, len(back)+len(fwd))
+		for b := len(back) - 1; b >= 0; b-- {
+			ids = append(ids, back[b])
+		}
+		ids = append(ids, fwd...)
+		lines = append(lines, ids)
+	}
+	return lines
+}
