@@ -201,36 +201,7 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 			z[j][i] = clampMargin(m)
 		}
 	}
-	// The fill, at the resolution of the output (at least 2 px per point
-	// for vector formats).
-	size := c.Size()
-	dpi := 144.0
-	if d, ok := c.Canvas.(interface{ DPI() float64 }); ok {
-		dpi = math.Max(d.DPI(), dpi)
-	}
-	scale := dpi / 72
-	w := int(math.Min(2400, math.Ceil(float64(size.X)*scale)))
-	h := int(math.Min(2400, math.Ceil(float64(size.Y)*scale)))
-	if w > 0 && h > 0 {
-		img := image.NewNRGBA(image.Rect(0, 0, w, h))
-		ulo, uhi := u[0], u[len(u)-1]
-		vlo, vhi := v[0], v[len(v)-1]
-		if !cm.YLog {
-			vlo, vhi = plt.Y.Min, plt.Y.Max
-		}
-		ci, cw := cellWeights(u, ulo, uhi, w)
-		rj, rw := cellWeights(v, vlo, vhi, h)
-		for py := 0; py < h; py++ {
-			jr := h - 1 - py // image rows run top down
-			j, b := rj[jr], rw[jr]
-			for px := 0; px < w; px++ {
-				i, a := ci[px], cw[px]
-				m := bilinear(z, i, j, a, b)
-				img.SetNRGBA(px, py, MarginColor(m))
-			}
-		}
-		c.DrawImage(c.Rectangle, img)
-	}
+	cp.fill(c, plt, u, v, z)
 	trX, trY := plt.Transforms(&c)
 	toCanvas := func(line []contourPoint) []vg.Point {
 		pts := make([]vg.Point, len(line))
@@ -266,6 +237,53 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 		rec = vg.Point{X: trX(k), Y: trY(a)}
 		pl.avoid(vg.Rectangle{Min: vg.Point{X: rec.X - 6, Y: rec.Y - 6}, Max: vg.Point{X: rec.X + 6, Y: rec.Y + 6}})
 	}
+	cp.measureLines(c, pl, u, v, toCanvas)
+	if rec.X > -1e9 {
+		c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: 5, Shape: draw.CircleGlyph{}}, rec)
+		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: 3.5, Shape: draw.CircleGlyph{}}, rec)
+	}
+}
+
+// fill paints the margin classes of the clamped margins z over the data
+// canvas, bilinear between the grid points at coordinates u, v.
+func (cp *contourPlotter) fill(c draw.Canvas, plt *plot.Plot, u, v []float64, z [][]float64) {
+	cm := cp.cm
+	// The fill, at the resolution of the output (at least 2 px per point
+	// for vector formats).
+	size := c.Size()
+	dpi := 144.0
+	if d, ok := c.Canvas.(interface{ DPI() float64 }); ok {
+		dpi = math.Max(d.DPI(), dpi)
+	}
+	scale := dpi / 72
+	w := int(math.Min(2400, math.Ceil(float64(size.X)*scale)))
+	h := int(math.Min(2400, math.Ceil(float64(size.Y)*scale)))
+	if w > 0 && h > 0 {
+		img := image.NewNRGBA(image.Rect(0, 0, w, h))
+		ulo, uhi := u[0], u[len(u)-1]
+		vlo, vhi := v[0], v[len(v)-1]
+		if !cm.YLog {
+			vlo, vhi = plt.Y.Min, plt.Y.Max
+		}
+		ci, cw := cellWeights(u, ulo, uhi, w)
+		rj, rw := cellWeights(v, vlo, vhi, h)
+		for py := 0; py < h; py++ {
+			jr := h - 1 - py // image rows run top down
+			j, b := rj[jr], rw[jr]
+			for px := 0; px < w; px++ {
+				i, a := ci[px], cw[px]
+				m := bilinear(z, i, j, a, b)
+				img.SetNRGBA(px, py, MarginColor(m))
+			}
+		}
+		c.DrawImage(c.Rectangle, img)
+	}
+}
+
+// measureLines strokes the dotted iso-lines of the study's measures and
+// places their labels with pl; toCanvas maps a line onto the canvas.
+func (cp *contourPlotter) measureLines(c draw.Canvas, pl *labelPlacer, u, v []float64, toCanvas func([]contourPoint) []vg.Point) {
+	cm := cp.cm
 	isoSty := draw.LineStyle{Color: color.NRGBA{0x20, 0x20, 0x20, 0xFF}, Width: 1, Dashes: []vg.Length{1.5, 2.5}}
 	lab := textStyle(8, color.NRGBA{0x20, 0x20, 0x20, 0xFF})
 	for _, im := range cm.Iso {
@@ -285,10 +303,6 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 				pl.place(c, lab, txt, corners, true)
 			}
 		}
-	}
-	if rec.X > -1e9 {
-		c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: 5, Shape: draw.CircleGlyph{}}, rec)
-		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: 3.5, Shape: draw.CircleGlyph{}}, rec)
 	}
 }
 
