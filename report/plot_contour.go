@@ -53,42 +53,7 @@ type IsoMeasure struct {
 // one when it has axis data, else the one whose margin peaks highest.
 func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 	p := res.Plan
-	// The margin rows are computed on demand, for the combinations drawn.
-	rowsOf := func(c *sweep.ComboResult) [][]float64 {
-		if c == nil {
-			return nil
-		}
-		rows := c.AxisMarginRows()
-		if len(rows) < 2 || len(rows) != len(p.AxisValues) {
-			return nil
-		}
-		for _, row := range rows {
-			if len(row) != len(p.Grid) {
-				return nil
-			}
-		}
-		return rows
-	}
-	var pickC *sweep.ComboResult
-	pickRows := rowsOf(sr.Best)
-	if pickRows != nil {
-		pickC = sr.Best
-	} else {
-		// The combination that comes closest to feasible; its rows are
-		// swept again only once it is chosen.
-		bestPeak := math.Inf(-1)
-		for _, c := range sr.Combos {
-			if c == nil || len(c.AxisWindows) < 2 && len(c.AxisMargins) < 2 {
-				continue
-			}
-			if pk := c.AxisMarginPeak(); pickC == nil || pk > bestPeak {
-				pickC, bestPeak = c, pk
-			}
-		}
-		if pickRows = rowsOf(pickC); pickRows == nil {
-			pickC = nil
-		}
-	}
+	pickC, pickRows := contourCombo(p, sr)
 	if pickC == nil {
 		return nil
 	}
@@ -101,88 +66,9 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 		cm.YLog = cm.YLog && v > 0
 	}
 	cm.Edges = windowEdgeLines(pickC.AxisWindows, p.AxisValues, yi)
-	// Thin the rows like the columns: each kept row takes the smallest
-	// margin of the rows it stands for.
-	cols := make([][]float64, len(pickRows))
-	for j, row := range pickRows {
-		cols[j] = thinMargins(row, xi)
-	}
-	cm.Z = make([][]float64, len(yi))
-	for j := range cm.Z {
-		cm.Z[j] = make([]float64, len(xi))
-	}
-	col := make([]float64, len(cols))
-	for i := range xi {
-		for j := range cols {
-			col[j] = cols[j][i]
-		}
-		for j, v := range thinMargins(col, yi) {
-			cm.Z[j][i] = v
-		}
-	}
-	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, row := range cm.Z {
-		for _, v := range row {
-			v = clampMargin(v)
-			if !math.IsNaN(v) {
-				lo, hi = math.Min(lo, v), math.Max(hi, v)
-			}
-		}
-	}
-	for _, e := range MarginEdges {
-		if e == 0 || (e > lo && e < hi) {
-			cm.Levels = append(cm.Levels, e)
-		}
-	}
-	measures := pickC.AxisMeasureRows()
-	names := make([]string, 0, len(measures))
-	for n := range measures {
-		names = append(names, n)
-	}
-	sort.Strings(names)
-	units := map[string]string{}
-	for _, m := range p.Measures {
-		units[m.Name] = m.Unit.Text
-	}
-	for _, n := range names {
-		rows := measures[n]
-		if len(rows) != len(p.AxisValues) {
-			continue
-		}
-		im := IsoMeasure{Name: n, Unit: units[n], LogZ: make([][]float64, len(yi))}
-		mlo, mhi := math.Inf(1), math.Inf(-1)
-		for j, yj := range yi {
-			im.LogZ[j] = make([]float64, len(xi))
-			for i, xk := range xi {
-				v := rows[yj][xk]
-				if v > 0 && !math.IsInf(v, 0) {
-					im.LogZ[j][i] = math.Log10(v)
-					mlo, mhi = math.Min(mlo, im.LogZ[j][i]), math.Max(mhi, im.LogZ[j][i])
-				} else {
-					im.LogZ[j][i] = math.NaN()
-				}
-			}
-		}
-		// Iso-lines at 1, 2 and 5 times the powers of ten inside the range,
-		// at most three of them.
-		for d := math.Floor(mlo); d <= math.Ceil(mhi); d++ {
-			for _, k := range []float64{1, 2, 5} {
-				if l := d + math.Log10(k); l > mlo && l < mhi {
-					im.Levels = append(im.Levels, math.Pow(10, l))
-				}
-			}
-		}
-		for len(im.Levels) > 3 {
-			var kept []float64
-			for i := 0; i < len(im.Levels); i += 2 {
-				kept = append(kept, im.Levels[i])
-			}
-			im.Levels = kept
-		}
-		if len(im.Levels) > 0 {
-			cm.Iso = append(cm.Iso, im)
-		}
-	}
+	cm.Z = thinMarginGrid(pickRows, xi, yi)
+	cm.Levels = marginLevels(cm.Z)
+	cm.Iso = isoMeasures(p, pickC, xi, yi)
 	return cm
 }
 
@@ -315,36 +201,7 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 			z[j][i] = clampMargin(m)
 		}
 	}
-	// The fill, at the resolution of the output (at least 2 px per point
-	// for vector formats).
-	size := c.Size()
-	dpi := 144.0
-	if d, ok := c.Canvas.(interface{ DPI() float64 }); ok {
-		dpi = math.Max(d.DPI(), dpi)
-	}
-	scale := dpi / 72
-	w := int(math.Min(2400, math.Ceil(float64(size.X)*scale)))
-	h := int(math.Min(2400, math.Ceil(float64(size.Y)*scale)))
-	if w > 0 && h > 0 {
-		img := image.NewNRGBA(image.Rect(0, 0, w, h))
-		ulo, uhi := u[0], u[len(u)-1]
-		vlo, vhi := v[0], v[len(v)-1]
-		if !cm.YLog {
-			vlo, vhi = plt.Y.Min, plt.Y.Max
-		}
-		ci, cw := cellWeights(u, ulo, uhi, w)
-		rj, rw := cellWeights(v, vlo, vhi, h)
-		for py := 0; py < h; py++ {
-			jr := h - 1 - py // image rows run top down
-			j, b := rj[jr], rw[jr]
-			for px := 0; px < w; px++ {
-				i, a := ci[px], cw[px]
-				m := bilinear(z, i, j, a, b)
-				img.SetNRGBA(px, py, MarginColor(m))
-			}
-		}
-		c.DrawImage(c.Rectangle, img)
-	}
+	cp.fill(c, plt, u, v, z)
 	trX, trY := plt.Transforms(&c)
 	toCanvas := func(line []contourPoint) []vg.Point {
 		pts := make([]vg.Point, len(line))
@@ -380,6 +237,53 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 		rec = vg.Point{X: trX(k), Y: trY(a)}
 		pl.avoid(vg.Rectangle{Min: vg.Point{X: rec.X - 6, Y: rec.Y - 6}, Max: vg.Point{X: rec.X + 6, Y: rec.Y + 6}})
 	}
+	cp.measureLines(c, pl, u, v, toCanvas)
+	if rec.X > -1e9 {
+		c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: 5, Shape: draw.CircleGlyph{}}, rec)
+		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: 3.5, Shape: draw.CircleGlyph{}}, rec)
+	}
+}
+
+// fill paints the margin classes of the clamped margins z over the data
+// canvas, bilinear between the grid points at coordinates u, v.
+func (cp *contourPlotter) fill(c draw.Canvas, plt *plot.Plot, u, v []float64, z [][]float64) {
+	cm := cp.cm
+	// The fill, at the resolution of the output (at least 2 px per point
+	// for vector formats).
+	size := c.Size()
+	dpi := 144.0
+	if d, ok := c.Canvas.(interface{ DPI() float64 }); ok {
+		dpi = math.Max(d.DPI(), dpi)
+	}
+	scale := dpi / 72
+	w := int(math.Min(2400, math.Ceil(float64(size.X)*scale)))
+	h := int(math.Min(2400, math.Ceil(float64(size.Y)*scale)))
+	if w > 0 && h > 0 {
+		img := image.NewNRGBA(image.Rect(0, 0, w, h))
+		ulo, uhi := u[0], u[len(u)-1]
+		vlo, vhi := v[0], v[len(v)-1]
+		if !cm.YLog {
+			vlo, vhi = plt.Y.Min, plt.Y.Max
+		}
+		ci, cw := cellWeights(u, ulo, uhi, w)
+		rj, rw := cellWeights(v, vlo, vhi, h)
+		for py := 0; py < h; py++ {
+			jr := h - 1 - py // image rows run top down
+			j, b := rj[jr], rw[jr]
+			for px := 0; px < w; px++ {
+				i, a := ci[px], cw[px]
+				m := bilinear(z, i, j, a, b)
+				img.SetNRGBA(px, py, MarginColor(m))
+			}
+		}
+		c.DrawImage(c.Rectangle, img)
+	}
+}
+
+// measureLines strokes the dotted iso-lines of the study's measures and
+// places their labels with pl; toCanvas maps a line onto the canvas.
+func (cp *contourPlotter) measureLines(c draw.Canvas, pl *labelPlacer, u, v []float64, toCanvas func([]contourPoint) []vg.Point) {
+	cm := cp.cm
 	isoSty := draw.LineStyle{Color: color.NRGBA{0x20, 0x20, 0x20, 0xFF}, Width: 1, Dashes: []vg.Length{1.5, 2.5}}
 	lab := textStyle(8, color.NRGBA{0x20, 0x20, 0x20, 0xFF})
 	for _, im := range cm.Iso {
@@ -399,10 +303,6 @@ func (cp *contourPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 				pl.place(c, lab, txt, corners, true)
 			}
 		}
-	}
-	if rec.X > -1e9 {
-		c.DrawGlyph(draw.GlyphStyle{Color: color.White, Radius: 5, Shape: draw.CircleGlyph{}}, rec)
-		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Radius: 3.5, Shape: draw.CircleGlyph{}}, rec)
 	}
 }
 
@@ -446,11 +346,6 @@ func isolines(u, v []float64, z [][]float64, level float64) [][]contourPoint {
 	if nx < 2 || ny < 2 {
 		return nil
 	}
-	type seg struct{ a, b int } // edge ids
-	// Edge ids: 2·(j·nx+i) for the edge from (i,j) to (i+1,j), and
-	// 2·(j·nx+i)+1 for the edge from (i,j) to (i,j+1).
-	hEdge := func(i, j int) int { return 2 * (j*nx + i) }
-	vEdge := func(i, j int) int { return 2*(j*nx+i) + 1 }
 	point := map[int]contourPoint{}
 	cross := func(id int) contourPoint {
 		if q, ok := point[id]; ok {
@@ -469,94 +364,8 @@ func isolines(u, v []float64, z [][]float64, level float64) [][]contourPoint {
 		point[id] = q
 		return q
 	}
-	var segs []seg
-	for j := 0; j < ny-1; j++ {
-		for i := 0; i < nx-1; i++ {
-			z00, z10, z11, z01 := z[j][i], z[j][i+1], z[j+1][i+1], z[j+1][i]
-			if math.IsNaN(z00) || math.IsNaN(z10) || math.IsNaN(z11) || math.IsNaN(z01) {
-				continue
-			}
-			in := func(x float64) int {
-				if x >= level {
-					return 1
-				}
-				return 0
-			}
-			code := in(z00) | in(z10)<<1 | in(z11)<<2 | in(z01)<<3
-			bottom, right, top, left := hEdge(i, j), vEdge(i+1, j), hEdge(i, j+1), vEdge(i, j)
-			switch code {
-			case 0, 15:
-			case 1, 14:
-				segs = append(segs, seg{left, bottom})
-			case 2, 13:
-				segs = append(segs, seg{bottom, right})
-			case 3, 12:
-				segs = append(segs, seg{left, right})
-			case 4, 11:
-				segs = append(segs, seg{right, top})
-			case 6, 9:
-				segs = append(segs, seg{bottom, top})
-			case 7, 8:
-				segs = append(segs, seg{left, top})
-			case 5, 10:
-				centre := (z00 + z10 + z11 + z01) / 4
-				// Corners 00 and 11 agree; the centre says whether they
-				// join across the cell.
-				joined := (centre >= level) == (code == 5)
-				if joined {
-					segs = append(segs, seg{left, top}, seg{bottom, right})
-				} else {
-					segs = append(segs, seg{left, bottom}, seg{right, top})
-				}
-			}
-		}
-	}
-	at := map[int][]int{}
-	for k, s := range segs {
-		at[s.a] = append(at[s.a], k)
-		at[s.b] = append(at[s.b], k)
-	}
-	used := make([]bool, len(segs))
-	next := func(edge, from int) (int, bool) {
-		for _, k := range at[edge] {
-			if k != from && !used[k] {
-				return k, true
-			}
-		}
-		return 0, false
-	}
 	var lines [][]contourPoint
-	for k := range segs {
-		if used[k] {
-			continue
-		}
-		used[k] = true
-		// walk follows the segments joined end to end from edge e of
-		// segment k and returns the edges it passes.
-		walk := func(e int) []int {
-			var out []int
-			for cur := k; ; {
-				n, ok := next(e, cur)
-				if !ok {
-					return out
-				}
-				used[n] = true
-				if segs[n].a == e {
-					e = segs[n].b
-				} else {
-					e = segs[n].a
-				}
-				out = append(out, e)
-				cur = n
-			}
-		}
-		fwd := append([]int{segs[k].a, segs[k].b}, walk(segs[k].b)...)
-		back := walk(segs[k].a)
-		ids := make([]int, 0, len(back)+len(fwd))
-		for b := len(back) - 1; b >= 0; b-- {
-			ids = append(ids, back[b])
-		}
-		ids = append(ids, fwd...)
+	for _, ids := range joinSegments(cellSegments(z, nx, ny, level)) {
 		line := make([]contourPoint, len(ids))
 		for m, id := range ids {
 			line[m] = cross(id)

@@ -94,8 +94,43 @@ func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
 	if cur != "" {
 		p.Y.Label.Text += " [" + cur + "]"
 	}
+	costYAxis(p, cs.Cost)
+	pl := &labelPlacer{}
+	shade := &windowPlotter{window: cs.Window, pl: pl}
+	p.Add(shade)
+	in, out := costRuns(cs)
+	firstIn, firstOut := addCostLines(p, in, out)
+	marks := &costMarks{series: cs, currency: cur, pl: pl}
+	p.Add(marks)
+	var legend []legendEntry
+	if firstIn != nil {
+		legend = append(legend, legendEntry{"cost in the window", firstIn})
+	}
+	if firstOut != nil {
+		legend = append(legend, legendEntry{"cost outside it", firstOut})
+	}
+	legend = append(legend, legendEntry{"feasible window", shade})
+	if marks.hasRecommended() {
+		legend = append(legend, legendEntry{"recommended scale", glyphThumb{draw.PyramidGlyph{}}})
+	}
+	if marks.hasCheapest() {
+		legend = append(legend, legendEntry{"cheapest feasible scale", glyphThumb{draw.RingGlyph{}}})
+	}
+	area := inset(dc)
+	rows := legendRows(legend, area.Size().X)
+	h := vg.Length(len(rows)) * legendRowH
+	p.Draw(draw.Crop(area, 0, 0, h, 0))
+	for i, row := range rows {
+		top := h - vg.Length(i)*legendRowH
+		drawLegendRow(draw.Crop(area, 0, 0, top-legendRowH, top-area.Size().Y), row)
+	}
+}
+
+// costYAxis sets the cost axis's range, scale and ticks from the finite
+// costs: logarithmic when they span more than a factor of 20.
+func costYAxis(p *plot.Plot, cost []float64) {
 	lo, hi := math.Inf(1), math.Inf(-1)
-	for _, v := range cs.Cost {
+	for _, v := range cost {
 		if !math.IsNaN(v) && !math.IsInf(v, 0) {
 			lo, hi = math.Min(lo, v), math.Max(hi, v)
 		}
@@ -116,10 +151,11 @@ func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
 		}
 		p.Y.Tick.Marker = moneyTicks{}
 	}
-	pl := &labelPlacer{}
-	shade := &windowPlotter{window: cs.Window, pl: pl}
-	p.Add(shade)
-	var in, out []plotter.XYs
+}
+
+// costRuns cuts the cost curve into runs inside and outside the window,
+// broken where the cost is not finite; runs that meet share their point.
+func costRuns(cs *CostSeries) (in, out []plotter.XYs) {
 	var cur1 plotter.XYs
 	curIn := false
 	flush := func() {
@@ -148,9 +184,15 @@ func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
 		cur1 = append(cur1, plotter.XY{X: x, Y: v})
 	}
 	flush()
+	return in, out
+}
+
+// addCostLines adds the runs to p, dashed grey outside the window and
+// solid blue inside, and returns the first line of each kind for the
+// legend (nil when there is none).
+func addCostLines(p *plot.Plot, in, out []plotter.XYs) (firstIn, firstOut *plotter.Line) {
 	outStyle := draw.LineStyle{Color: costOutColor, Width: 1.2, Dashes: []vg.Length{4, 3}}
 	inStyle := draw.LineStyle{Color: costInColor, Width: 2.2}
-	var firstIn, firstOut *plotter.Line
 	for _, xy := range out {
 		l := &plotter.Line{XYs: xy, LineStyle: outStyle}
 		p.Add(l)
@@ -165,30 +207,7 @@ func drawCost(dc draw.Canvas, res *sweep.Result, cs *CostSeries) {
 			firstIn = l
 		}
 	}
-	marks := &costMarks{series: cs, currency: cur, pl: pl}
-	p.Add(marks)
-	var legend []legendEntry
-	if firstIn != nil {
-		legend = append(legend, legendEntry{"cost in the window", firstIn})
-	}
-	if firstOut != nil {
-		legend = append(legend, legendEntry{"cost outside it", firstOut})
-	}
-	legend = append(legend, legendEntry{"feasible window", shade})
-	if marks.hasRecommended() {
-		legend = append(legend, legendEntry{"recommended scale", glyphThumb{draw.PyramidGlyph{}}})
-	}
-	if marks.hasCheapest() {
-		legend = append(legend, legendEntry{"cheapest feasible scale", glyphThumb{draw.RingGlyph{}}})
-	}
-	area := inset(dc)
-	rows := legendRows(legend, area.Size().X)
-	h := vg.Length(len(rows)) * legendRowH
-	p.Draw(draw.Crop(area, 0, 0, h, 0))
-	for i, row := range rows {
-		top := h - vg.Length(i)*legendRowH
-		drawLegendRow(draw.Crop(area, 0, 0, top-legendRowH, top-area.Size().Y), row)
-	}
+	return firstIn, firstOut
 }
 
 // Legend row geometry.
