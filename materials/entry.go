@@ -3,6 +3,7 @@ package materials
 import (
 	"fmt"
 	"math"
+	"sort"
 	"strings"
 )
 
@@ -202,11 +203,14 @@ func (e Entry) Quantities() []string {
 	for _, r := range e.Ranges {
 		c = c.With(r.Condition, r.Default)
 	}
-	props := e.eval(c)
-	out := make([]string, len(props))
-	for i, p := range props {
-		out[i] = p.Quantity
+	// The values alone: the tunable ranges eval adds cost a sweep of
+	// every knob and do not change which quantities there are.
+	v := e.values(c)
+	out := make([]string, 0, len(v))
+	for q := range v {
+		out = append(out, q)
 	}
+	sort.Strings(out)
 	return out
 }
 
@@ -247,7 +251,7 @@ func (e Entry) eval(rc Conditions) []Property {
 	var sweep func(i int, c Conditions)
 	sweep = func(i int, c Conditions) {
 		if i == len(knobs) {
-			for _, p := range complete(e.model(c)) {
+			for _, p := range derive(e.model(c)) {
 				lo[p.Quantity] = math.Min(lo[p.Quantity], p.Value)
 				hi[p.Quantity] = math.Max(hi[p.Quantity], p.Value)
 			}

@@ -32,6 +32,14 @@ const (
 // follows from the other two (ν = μ/ρ), carrying tunable ranges through by
 // interval arithmetic, and sorts the properties by quantity name.
 func complete(props []Property) []Property {
+	props = derive(props)
+	sortProperties(props)
+	return props
+}
+
+// derive is complete without the sorting, for callers that only read the
+// values (a recipe's objective is evaluated thousands of times).
+func derive(props []Property) []Property {
 	idx := func(q string) int {
 		for i, p := range props {
 			if p.Quantity == q {
@@ -49,7 +57,6 @@ func complete(props []Property) []Property {
 	case mu >= 0 && nu >= 0 && rho < 0:
 		props = append(props, quotient("density", props[mu], props[nu], srcDensityDerived))
 	}
-	sortProperties(props)
 	return props
 }
 

@@ -147,9 +147,9 @@ func (e Entry) ValuesAt(c Conditions) (map[string]float64, error) {
 func (e Entry) values(rc Conditions) map[string]float64 {
 	var props []Property
 	if e.model == nil {
-		props = complete(append([]Property(nil), e.fixed...))
+		props = derive(append([]Property(nil), e.fixed...))
 	} else {
-		props = complete(e.model(rc))
+		props = derive(e.model(rc))
 	}
 	out := make(map[string]float64, len(props))
 	for _, p := range props {

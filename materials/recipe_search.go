@@ -24,8 +24,18 @@ type Search struct {
 // applies where the entry takes the condition). Met lists the recipes
 // meeting the spec by the tolerance reached, then by the number of
 // conditions moved, then by name; when none meets, Nearest lists each
-// entry's nearest recipe by |ln(value/required)|.
+// entry's nearest recipe by |ln(value/required)|. An entry whose range
+// shows it cannot meet a constant target is not solved (see Searcher).
 func (l *Library) FindRecipes(spec RecipeSpec, filter func(Entry) bool) Search {
+	return l.Searcher().FindRecipes(spec, filter)
+}
+
+// extremeFunc is one entry's extreme of a property (extremeOf, or a
+// Searcher's remembered one). findRecipes with a nil extremeFunc solves
+// every entry, screening none.
+type extremeFunc func(e Entry, quantity string, sign float64, limits map[Condition]Range) (Recipe, error)
+
+func (l *Library) findRecipes(spec RecipeSpec, filter func(Entry) bool, extreme extremeFunc) Search {
 	var out Search
 	for _, e := range l.Entries() {
 		if filter != nil && !filter(e) || !hasQuantity(e, spec.Target.Quantity) {
@@ -33,6 +43,10 @@ func (l *Library) FindRecipes(spec RecipeSpec, filter func(Entry) bool) Search {
 		}
 		sp := spec
 		sp.At = e.Applicable(spec.At)
+		if r, ok := screened(e, sp, extreme); ok {
+			out.Nearest = append(out.Nearest, r)
+			continue
+		}
 		r, err := e.Recipe(sp)
 		if err != nil {
 			out.Skipped = append(out.Skipped, err.Error())
@@ -77,7 +91,10 @@ func (l *Library) FindRecipes(spec RecipeSpec, filter func(Entry) bool) Search {
 		side = "lowest"
 	}
 	out.Reason = fmt.Sprintf("%s %s: no entry searched can be brought to it within its tolerance", q, withUnit(q, best.Target.Required))
-	if ext, err := l.Extreme(q, lowest, spec.Limits, filter); err == nil {
+	if extreme == nil {
+		extreme = extremeOf
+	}
+	if ext, err := l.extreme(q, lowest, spec.Limits, filter, extreme); err == nil {
 		out.Extreme = &ext
 		out.Reason += fmt.Sprintf("; the %s %s they can make is %s (%s at %s)", side, q, withUnit(q, ext.Target.Value), ext.Entry, ext.Conditions)
 	}
@@ -116,6 +133,10 @@ var ErrNoEntry = errors.New("no entry of the library has that property")
 // it: "the least viscous liquid the library can make". Fixed entries count
 // with their value (or the end of a tunable range).
 func (l *Library) Extreme(quantity string, lowest bool, limits map[Condition]Range, filter func(Entry) bool) (Recipe, error) {
+	return l.extreme(quantity, lowest, limits, filter, extremeOf)
+}
+
+func (l *Library) extreme(quantity string, lowest bool, limits map[Condition]Range, filter func(Entry) bool, extremeOf extremeFunc) (Recipe, error) {
 	var best Recipe
 	found := false
 	sign := 1.0

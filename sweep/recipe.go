@@ -79,6 +79,8 @@ type recipeMemo struct {
 	mu       sync.Mutex
 	extremes map[string]extremeFound
 	searches map[string]libSearch
+	once     sync.Once
+	search   *materials.Searcher
 }
 
 type extremeFound struct {

@@ -58,7 +58,21 @@ func (x *combo) searchLibrary(ch check, req float64) libSearch {
 			at = at.Without(materials.Temperature)
 		}
 	}
-	key := fmt.Sprintf("%s|%s|%s|%v|%v|%v", ch.q, strconv.FormatFloat(req, 'g', 6, 64), kindWord(ch.cand.entry), at, exps, own0)
+	target := materials.Target{Quantity: ch.q, Value: req}
+	ownKey := ""
+	if len(exps) > 0 {
+		// The requirement follows the entry's own properties (its density,
+		// through the density scale).
+		target.Of = func(v map[string]float64) float64 {
+			r := req
+			for Q, a := range exps {
+				r *= math.Pow(v[Q]/own0[Q], a)
+			}
+			return r
+		}
+		ownKey = fmt.Sprintf("%v|%v", exps, own0)
+	}
+	key := fmt.Sprintf("%s|%s|%s|%v|%s", ch.q, strconv.FormatFloat(req, 'g', 6, 64), kindWord(ch.cand.entry), at, ownKey)
 	memo := x.plan.recipes
 	if memo != nil {
 		memo.mu.Lock()
@@ -69,19 +83,14 @@ func (x *combo) searchLibrary(ch check, req float64) libSearch {
 		memo.mu.Unlock()
 	}
 	spec := materials.RecipeSpec{
-		Target: materials.Target{Quantity: ch.q, Of: func(v map[string]float64) float64 {
-			r := req
-			for Q, a := range exps {
-				r *= math.Pow(v[Q]/own0[Q], a)
-			}
-			return r
-		}},
+		Target:    target,
 		Tolerance: x.plan.Settings.Tolerance,
 		At:        at,
 		Limits:    limits,
 	}
 	filter := func(e materials.Entry) bool { return compatible(ch.cand, e) }
-	found := x.plan.Library.FindRecipes(spec, filter)
+	search := x.plan.searcher()
+	found := search.FindRecipes(spec, filter)
 	var out libSearch
 	unit := quantityUnit(ch.q)
 	word := kindWord(ch.cand.entry)
@@ -102,7 +111,7 @@ func (x *combo) searchLibrary(ch check, req float64) libSearch {
 			side, lowest = "least", true
 		}
 		out.text = fmt.Sprintf("no recipe in the library reaches it%s", where)
-		if ext, err := x.plan.Library.Extreme(ch.q, lowest, limits, filter); err == nil {
+		if ext, err := search.Extreme(ch.q, lowest, limits, filter); err == nil {
 			what := fmt.Sprintf("the %s viscous %s the library can make", side, word)
 			if ch.q != "kinematic_viscosity" && ch.q != "dynamic_viscosity" {
 				side = map[bool]string{true: "lowest", false: "highest"}[lowest]
@@ -120,4 +129,14 @@ func (x *combo) searchLibrary(ch check, req float64) libSearch {
 		memo.mu.Unlock()
 	}
 	return out
+}
+
+// searcher is the plan's library searcher, made on first use (after the
+// study's custom entries were added to the library).
+func (p *Plan) searcher() *materials.Searcher {
+	if p.recipes == nil {
+		return p.Library.Searcher()
+	}
+	p.recipes.once.Do(func() { p.recipes.search = p.Library.Searcher() })
+	return p.recipes.search
 }

@@ -26,16 +26,12 @@ func kindWord(e materials.Entry) string {
 // below 100 kg/m³ (gases near atmospheric pressure are about 0.1–2 kg/m³,
 // liquids above about 600; common practice).
 func isGas(e materials.Entry) bool {
-	props, err := e.At(materials.Conditions{})
+	v, err := e.ValuesAt(materials.Conditions{})
 	if err != nil {
 		return false
 	}
-	for _, pr := range props {
-		if pr.Quantity == "density" {
-			return pr.Value < 100
-		}
-	}
-	return false
+	rho, ok := v["density"]
+	return ok && rho < 100
 }
 
 // compatible reports whether entry e could stand in for candidate c: the
