@@ -128,6 +128,9 @@ type axisSweep struct {
 	axes     []float64
 	us       []float64
 	lp       *limitPlan // nil when the limits are compiled per axis value
+	// peak is the largest margin over the grid and the axis, found by
+	// choose (peak.go).
+	peak float64
 }
 
 // newAxisCombo is the combination at one axis value, sharing the compiled
@@ -202,7 +205,8 @@ func (c *ComboResult) AxisMarginRows() [][]float64 {
 
 // AxisMarginPeak returns, with a second axis, the largest margin over the
 // grid and the axis (-Inf without an axis), keeping no rows: how close to
-// feasible the combination comes.
+// feasible the combination comes. It was found with the windows, without
+// sweeping the grid again (peak.go).
 func (c *ComboResult) AxisMarginPeak() float64 {
 	pk := math.Inf(-1)
 	if c.AxisMargins != nil || c.axis == nil {
@@ -215,14 +219,7 @@ func (c *ComboResult) AxisMarginPeak() float64 {
 		}
 		return pk
 	}
-	c.axis.each(func(_ int, m []float64) {
-		for _, v := range m {
-			if v > pk {
-				pk = v
-			}
-		}
-	})
-	return pk
+	return c.axis.peak
 }
 
 // AxisMeasureRows returns, with a second axis, each study measure at model
@@ -296,6 +293,9 @@ func (a *axisSweep) choose(ctx context.Context, cache sampleCache) (bestI int, w
 			return 0, nil, nil, err
 		}
 		windows = append(windows, out.window)
+		if x.windowOnly && (i == 0 || out.peak > a.peak) {
+			a.peak = out.peak
+		}
 		if bestI < 0 || better(out.window, bestWindow) {
 			bestI, bestWindow = i, out.window
 		}

@@ -61,7 +61,33 @@ func TestAxisChoiceByHand(t *testing.T) {
 // at the chosen value equal to the margins kept for the map sheets.
 func TestAxisRowsOnDemand(t *testing.T) {
 	res := runStudy(t, study.Synthetic(30, 6, 2, 1))
-	for _, c := range res.Strategies[0].Combos {
+	checkAxisRows(t, res, res.Strategies[0].Combos)
+}
+
+// The peak found with the windows equals the largest margin of the rows
+// swept on demand, also for strategies with no window anywhere (those a
+// contour map picks from by their peak).
+func TestAxisPeakOfInfeasibleStrategies(t *testing.T) {
+	res := runStudy(t, study.Synthetic(301, 9, 3, 4))
+	var combos []*ComboResult
+	empty := 0
+	for _, sr := range res.Strategies {
+		for _, c := range sr.Combos {
+			combos = append(combos, c)
+			if c.Window.Empty() {
+				empty++
+			}
+		}
+	}
+	if empty == 0 {
+		t.Fatalf("the study has no combination without a window")
+	}
+	checkAxisRows(t, res, combos)
+}
+
+func checkAxisRows(t *testing.T, res *Result, combos []*ComboResult) {
+	t.Helper()
+	for _, c := range combos {
 		if c.AxisMargins != nil || c.AxisMeasures != nil {
 			t.Fatalf("%s: margins kept at every axis value", c.Medium)
 		}

@@ -319,36 +319,16 @@ func (x *combo) bandLimit(ch check, upper bool) (compiled, error) {
 }
 
 // bestPoint returns the u in the intervals where the smallest margin of
-// the linear limits is largest, and that margin. The smallest of linear
-// functions is concave, so its maximum lies at an interval's end or where
-// two lines cross.
+// the linear limits is largest, and that margin (peak.go).
 func bestPoint(limits []compiled, in []uInterval) (float64, float64) {
-	minAt := func(u float64) float64 {
-		m := math.Inf(1)
-		for _, l := range limits {
-			m = math.Min(m, l.info.A+l.info.B*u)
-		}
-		return m
+	lines := make([]line, len(limits))
+	for i, l := range limits {
+		lines[i] = line{l.info.A, l.info.B}
 	}
 	bu, bm := math.NaN(), math.Inf(-1)
-	try := func(u float64) {
-		if m := minAt(u); m > bm {
-			bu, bm = u, m
-		}
-	}
 	for _, iv := range in {
-		try(iv.lo)
-		try(iv.hi)
-		for i := range limits {
-			for j := i + 1; j < len(limits); j++ {
-				a, b := limits[i].info, limits[j].info
-				if a.B == b.B {
-					continue
-				}
-				if u := (b.A - a.A) / (a.B - b.B); u > iv.lo && u < iv.hi {
-					try(u)
-				}
-			}
+		if u, m := concavePeak(lines, iv.lo, iv.hi); m > bm {
+			bu, bm = u, m
 		}
 	}
 	return bu, bm

@@ -26,6 +26,9 @@ type sweepOut struct {
 	// let fill say why the checks of substitute.go empty the window.
 	us    []float64
 	condU float64
+	// peak is, when only the window is found, the largest margin over the
+	// grid (peak.go).
+	peak float64
 }
 
 // sweep evaluates every limit over the grid and finds the window.
@@ -52,6 +55,7 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	}
 	out.window = toWindow(win)
 	if x.windowOnly {
+		out.peak = gridPeak(limits, us, condU, condFails != "" && math.IsNaN(condU))
 		return out, nil
 	}
 	// Margins on the grid, for the maps: one pass per limit over the grid,
