@@ -129,8 +129,10 @@ type axisSweep struct {
 	us       []float64
 	lp       *limitPlan // nil when the limits are compiled per axis value
 	// peak is the largest margin over the grid and the axis, found by
-	// choose (peak.go).
+	// choose when no axis value has a window (NaN when one has: swept on
+	// demand); buf is choose's scratch for it (peak.go).
 	peak float64
+	buf  []float64
 }
 
 // newAxisCombo is the combination at one axis value, sharing the compiled
@@ -219,7 +221,17 @@ func (c *ComboResult) AxisMarginPeak() float64 {
 		}
 		return pk
 	}
-	return c.axis.peak
+	if !math.IsNaN(c.axis.peak) {
+		return c.axis.peak
+	}
+	c.axis.each(func(_ int, m []float64) {
+		for _, v := range m {
+			if v > pk {
+				pk = v
+			}
+		}
+	})
+	return pk
 }
 
 // AxisMeasureRows returns, with a second axis, each study measure at model
@@ -284,6 +296,12 @@ func (a *axisSweep) choose(ctx context.Context, cache sampleCache) (bestI int, w
 			return 0, nil, nil, err
 		}
 		x.windowOnly = len(a.axes) > 1
+		if x.windowOnly {
+			if a.buf == nil {
+				a.buf = make([]float64, len(a.us))
+			}
+			x.peakBuf = a.buf
+		}
 		var scratch []int
 		if !x.windowOnly {
 			scratch = make([]int, len(a.us))
@@ -293,8 +311,13 @@ func (a *axisSweep) choose(ctx context.Context, cache sampleCache) (bestI int, w
 			return 0, nil, nil, err
 		}
 		windows = append(windows, out.window)
-		if x.windowOnly && (i == 0 || out.peak > a.peak) {
-			a.peak = out.peak
+		if x.windowOnly {
+			switch {
+			case i == 0, math.IsNaN(out.peak):
+				a.peak = out.peak
+			case !math.IsNaN(a.peak) && out.peak > a.peak:
+				a.peak = out.peak
+			}
 		}
 		if bestI < 0 || better(out.window, bestWindow) {
 			bestI, bestWindow = i, out.window
@@ -303,6 +326,7 @@ func (a *axisSweep) choose(ctx context.Context, cache sampleCache) (bestI int, w
 			best = out
 		}
 	}
+	a.buf = nil
 	return bestI, windows, best, nil
 }
 

@@ -23,6 +23,9 @@ type compiled struct {
 	// margin at every grid point and its feasible set.
 	vals []float64
 	set  []uInterval
+	// concave says the sampled margins are concave along the grid (a run
+	// length: a sum of products of powers against one): peak.go.
+	concave bool
 	// lower/upper range limits of a tuned property are built directly.
 	// band is set on a limit that checks a candidate's own value against
 	// the value the strategy requires (substitute.go).
@@ -204,7 +207,7 @@ func sample(ctx context.Context, limits []compiled, us []float64, cache sampleCa
 			continue
 		}
 		if c, ok := cache[l.info.Name]; ok && sameForms(c.forms, l.forms) {
-			l.vals, l.set = c.vals, c.set
+			l.vals, l.set, l.concave = c.vals, c.set, c.concave
 			continue
 		}
 		lc := *l
@@ -218,6 +221,7 @@ func sample(ctx context.Context, limits []compiled, us []float64, cache sampleCa
 			}
 			l.vals[i] = margin(u)
 		}
+		l.concave = concaveSamples(l.vals)
 		l.set = sampledFrom(us, l.vals, margin, l.info.Name)
 		if l.set == nil {
 			l.set = []uInterval{}

@@ -16,7 +16,9 @@ import (
 // whose margin peaks highest over the grid and the second axis: the peak is
 // found this way at every axis value while the windows are found, in
 // O(limits²), without sweeping the grid (a limit that is not a product of
-// powers falls back to a pass over the grid).
+// powers falls back to a pass over the grid). It is found at the axis
+// values where the window is empty; a combination with a window somewhere
+// has its peak swept on demand (ComboResult.AxisMarginPeak).
 
 // line is a margin A + B·u.
 type line struct{ a, b float64 }
@@ -63,16 +65,20 @@ func concavePeak(lines []line, lo, hi float64) (float64, float64) {
 // similarity conditions' term: −Inf when a condition fails (failed), and
 // −|u − condU| when one pins log10 kL to condU (NaN: none). It equals the
 // largest value of the margins marginGrid and sweep compute.
-func gridPeak(limits []compiled, us []float64, condU float64, failed bool) float64 {
+func gridPeak(limits []compiled, us []float64, condU float64, failed bool, buf []float64) float64 {
 	if failed || len(us) == 0 {
 		return math.Inf(-1)
 	}
 	lines := make([]line, 0, len(limits)+2)
 	for _, l := range limits {
-		if !l.info.Linear {
-			return scanPeak(limits, us, condU)
+		switch {
+		case l.info.Linear:
+			lines = append(lines, line{l.info.A, l.info.B})
+		case l.vals != nil && l.concave:
+			return concaveGridPeak(limits, us, condU)
+		default:
+			return scanPeak(limits, us, condU, buf)
 		}
-		lines = append(lines, line{l.info.A, l.info.B})
 	}
 	if !math.IsNaN(condU) {
 		lines = append(lines, line{-condU, 1}, line{condU, -1})
@@ -91,6 +97,72 @@ func gridPeak(limits []compiled, us []float64, condU float64, failed bool) float
 	return peak
 }
 
+// concaveGridPeak is gridPeak when every limit that is not a product of
+// powers has margins concave along the grid: the smallest of concave
+// sequences is concave, so a ternary search over the grid points finds
+// its peak in O(limits · log points). Samples that are concave only to
+// rounding (concaveSamples) can put the peak found a rounding error below
+// the largest sample.
+func concaveGridPeak(limits []compiled, us []float64, condU float64) float64 {
+	for _, l := range limits {
+		if !l.info.Linear && (l.vals == nil || !l.concave) {
+			return scanPeak(limits, us, condU, nil)
+		}
+	}
+	at := func(i int) float64 {
+		m := math.Inf(1)
+		for j := range limits {
+			l := &limits[j]
+			v := l.info.A + l.info.B*us[i]
+			if !l.info.Linear {
+				v = l.vals[i]
+			}
+			if v < m {
+				m = v
+			}
+		}
+		if !math.IsNaN(condU) {
+			m = math.Min(m, -math.Abs(us[i]-condU))
+		}
+		return m
+	}
+	lo, hi := 0, len(us)-1
+	for hi-lo > 8 {
+		m1, m2 := lo+(hi-lo)/3, hi-(hi-lo)/3
+		switch f1, f2 := at(m1), at(m2); {
+		case f1 < f2:
+			lo = m1 + 1
+		case f1 > f2:
+			hi = m2 - 1
+		default: // a concave sequence peaks between two equal points
+			lo, hi = m1, m2
+		}
+	}
+	peak := math.Inf(-1)
+	for i := lo; i <= hi; i++ {
+		peak = math.Max(peak, at(i))
+	}
+	return peak
+}
+
+// concaveSamples says whether margins sampled along the grid are finite
+// and concave (every second difference at most a rounding error of the
+// values).
+func concaveSamples(v []float64) bool {
+	for i, x := range v {
+		if math.IsNaN(x) || math.IsInf(x, 0) {
+			return false
+		}
+		if i >= 2 {
+			d2 := x - 2*v[i-1] + v[i-2]
+			if d2 > 1e-12*(math.Abs(x)+math.Abs(v[i-1])+math.Abs(v[i-2])+1) {
+				return false
+			}
+		}
+	}
+	return true
+}
+
 // gridMargin is the margin at a grid point as sweep computes it: the
 // limits' lines, then the pinning condition's −|u − condU|.
 func gridMargin(lines []line, u, condU float64) float64 {
@@ -105,21 +177,50 @@ func gridMargin(lines []line, u, condU float64) float64 {
 	return m
 }
 
-// scanPeak is gridPeak by a pass over the grid, for limits that are not
-// all products of powers.
-func scanPeak(limits []compiled, us []float64, condU float64) float64 {
+// scanPeak is gridPeak by passes over the grid, one per limit as in
+// marginGrid, for limits that are not all products of powers; buf (nil, or
+// as long as us) is scratch.
+func scanPeak(limits []compiled, us []float64, condU float64, buf []float64) float64 {
+	if len(buf) != len(us) {
+		buf = make([]float64, len(us))
+	}
+	for i := range buf {
+		buf[i] = math.Inf(1)
+	}
+	for j := range limits {
+		l := &limits[j]
+		switch {
+		case l.info.Linear:
+			a, b := l.info.A, l.info.B
+			for i, u := range us {
+				if v := a + b*u; v < buf[i] {
+					buf[i] = v
+				}
+			}
+		case l.vals != nil:
+			for i, v := range l.vals {
+				if v < buf[i] {
+					buf[i] = v
+				}
+			}
+		default:
+			for i, u := range us {
+				if v := l.margin(u); v < buf[i] || math.IsNaN(v) {
+					buf[i] = v
+				}
+			}
+		}
+	}
 	peak := math.Inf(-1)
-	for i, u := range us {
-		m := math.Inf(1)
-		for j := range limits {
-			if v := limits[j].marginAt(i, u); v < m {
+	for i, m := range buf {
+		if !math.IsNaN(condU) {
+			if v := -math.Abs(us[i] - condU); v < m {
 				m = v
 			}
 		}
-		if !math.IsNaN(condU) {
-			m = math.Min(m, -math.Abs(u-condU))
+		if m > peak {
+			peak = m
 		}
-		peak = math.Max(peak, m)
 	}
 	return peak
 }

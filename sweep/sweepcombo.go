@@ -26,8 +26,8 @@ type sweepOut struct {
 	// let fill say why the checks of substitute.go empty the window.
 	us    []float64
 	condU float64
-	// peak is, when only the window is found, the largest margin over the
-	// grid (peak.go).
+	// peak is, when only the window is found and it is empty, the largest
+	// margin over the grid (peak.go); NaN otherwise.
 	peak float64
 }
 
@@ -55,7 +55,10 @@ func (x *combo) sweep(ctx context.Context, us []float64, cache sampleCache, limi
 	}
 	out.window = toWindow(win)
 	if x.windowOnly {
-		out.peak = gridPeak(limits, us, condU, condFails != "" && math.IsNaN(condU))
+		out.peak = math.NaN()
+		if out.window.Empty() {
+			out.peak = gridPeak(limits, us, condU, condFails != "" && math.IsNaN(condU), x.peakBuf)
+		}
 		return out, nil
 	}
 	// Margins on the grid, for the maps: one pass per limit over the grid,
