@@ -518,13 +518,29 @@ func clip(s string, n int) string {
 	return string(r[:n-1]) + "…"
 }
 
-// fitText shortens s until it is at most w wide in sty.
+// fitText shortens s until it is at most w wide in sty: the longest
+// prefix that fits with an ellipsis, at least one character. The width
+// grows with the prefix, so the prefix is found by bisection.
 func fitText(sty text.Style, s string, w vg.Length) string {
-	r := []rune(s)
-	for n := len(r); n > 1 && sty.Width(s) > w; n-- {
-		s = string(r[:n-1]) + "…"
+	if sty.Width(s) <= w {
+		return s
 	}
-	return s
+	r := []rune(s)
+	if len(r) < 2 {
+		return s
+	}
+	cut := func(k int) string { return string(r[:k]) + "…" }
+	// The longest k in [1, len(r)−1] whose cut fits; 1 when none does.
+	lo, hi := 1, len(r)-1
+	for lo < hi {
+		mid := (lo + hi + 1) / 2
+		if sty.Width(cut(mid)) <= w {
+			lo = mid
+		} else {
+			hi = mid - 1
+		}
+	}
+	return cut(lo)
 }
 
 // comboLabel names a combination in a map: its case and candidate pair.

@@ -583,6 +583,22 @@ func TestFitText(t *testing.T) {
 	if got := fitText(sty, "short", 300); got != "short" {
 		t.Errorf("fitText shortened a text that fits: %q", got)
 	}
+	// The longest prefix that fits, as dropping one character at a time
+	// finds it.
+	oneByOne := func(s string, w vg.Length) string {
+		r := []rune(s)
+		for n := len(r); n > 1 && sty.Width(s) > w; n-- {
+			s = string(r[:n-1]) + "…"
+		}
+		return s
+	}
+	for _, s := range []string{"water–glycerol 60 % in Deepwater tank [recommended]", "ü", "ab", "Ω·m²/s ≤ 3×10⁻⁶"} {
+		for _, w := range []vg.Length{0, 5, 20, 40, 80, 160, 400} {
+			if got, want := fitText(sty, s, w), oneByOne(s, w); got != want {
+				t.Errorf("fitText(%q, %v) = %q, want %q", s, w, got, want)
+			}
+		}
+	}
 }
 
 func TestPaletteClasses(t *testing.T) {

@@ -27,12 +27,8 @@ func sigFormat(x float64) string {
 		return "0.000E+00"
 	case e >= 3:
 		return "#,##0"
-	default:
-		s := "0."
-		for i := 0; i < 3-e; i++ {
-			s += "0"
-		}
-		return s
+	default: // 3 − e decimals, 1 to 6
+		return [...]string{"0.0", "0.00", "0.000", "0.0000", "0.00000", "0.000000"}[2-e]
 	}
 }
 
@@ -42,20 +38,30 @@ func (s *sheetWriter) sigCell(x sigNum) (any, error) {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return "", nil
 	}
+	id, err := s.sigStyle(v)
+	if err != nil {
+		return nil, err
+	}
+	return excelize.Cell{StyleID: id, Value: v}, nil
+}
+
+// sigStyle is the style of a cell showing v to four significant figures,
+// made on first use.
+func (s *sheetWriter) sigStyle(v float64) (int, error) {
 	f := sigFormat(v)
 	id, ok := s.formats[f]
 	if !ok {
 		var err error
 		id, err = s.f.NewStyle(&excelize.Style{CustomNumFmt: &f})
 		if err != nil {
-			return nil, err
+			return 0, err
 		}
 		if s.formats == nil {
 			s.formats = map[string]int{}
 		}
 		s.formats[f] = id
 	}
-	return excelize.Cell{StyleID: id, Value: v}, nil
+	return id, nil
 }
 
 // printRowsPerPage is the most rows a long table prints per page: its

@@ -44,6 +44,31 @@ type rowWriter struct {
 	err error
 	// cols are the column letters, by column index.
 	cols []string
+	// texts remembers the encoding of texts already written: a map sheet
+	// repeats its names on every row.
+	texts map[string]encodedText
+}
+
+type encodedText struct {
+	val      string
+	preserve bool
+}
+
+// maxRememberedTexts bounds rowWriter.texts; it starts again when full.
+const maxRememberedTexts = 4096
+
+// encode is trimCellText, remembered.
+func (r *rowWriter) encode(text string) encodedText {
+	if e, ok := r.texts[text]; ok {
+		return e
+	}
+	val, preserve := trimCellText(text)
+	if r.texts == nil || len(r.texts) >= maxRememberedTexts {
+		r.texts = map[string]encodedText{}
+	}
+	e := encodedText{val, preserve}
+	r.texts[text] = e
+	return e
 }
 
 func newRowWriter(w io.Writer, firstRow int) *rowWriter {
@@ -87,12 +112,13 @@ func (r *rowWriter) add(cells ...rowCell) error {
 		b.WriteString(`"`)
 		if c.style != 0 {
 			b.WriteString(` s="`)
-			b.WriteString(strconv.Itoa(c.style))
+			b.Write(strconv.AppendInt(b.AvailableBuffer(), int64(c.style), 10))
 			b.WriteString(`"`)
 		}
 		if c.isNum && !math.IsNaN(c.num) && !math.IsInf(c.num, 0) {
+			// A number's digits, sign and point need no XML escaping.
 			b.WriteString(`><v>`)
-			_ = xml.EscapeText(b, []byte(formatCellFloat(c.num)))
+			b.Write(appendCellFloat(b.AvailableBuffer(), c.num))
 			b.WriteString(`</v></c>`)
 			continue
 		}
@@ -100,13 +126,13 @@ func (r *rowWriter) add(cells ...rowCell) error {
 		if c.isNum {
 			text = fmt.Sprint(c.num)
 		}
-		val, preserve := trimCellText(text)
+		e := r.encode(text)
 		b.WriteString(` t="inlineStr"><is><t`)
-		if preserve {
+		if e.preserve {
 			b.WriteString(` xml:space="preserve"`)
 		}
 		b.WriteString(`>`)
-		b.WriteString(val)
+		b.WriteString(e.val)
 		b.WriteString(`</t></is></c>`)
 	}
 	b.WriteString(`</row>`)
@@ -125,16 +151,18 @@ func (r *rowWriter) flush() error {
 	return r.err
 }
 
-// formatCellFloat formats a number as the library does: the shortest
+// appendCellFloat appends a number formatted as the library does: the shortest
 // decimal that reads back as the same number, cut to 15 significant
 // digits (the spreadsheet's precision).
-func formatCellFloat(value float64) string {
-	str := strconv.FormatFloat(value, 'f', -1, 64)
+func appendCellFloat(dst []byte, value float64) []byte {
+	n := len(dst)
+	dst = strconv.AppendFloat(dst, value, 'f', -1, 64)
+	str := dst[n:]
 	if math.Abs(value) == math.MaxFloat64 {
-		return str
+		return dst
 	}
 	const maxPrec = 15
-	decimal := strings.IndexByte(str, '.')
+	decimal := bytes.IndexByte(str, '.')
 	significant := 0
 	for idx := range str {
 		if str[idx] < '0' || str[idx] > '9' || significant == 0 && str[idx] == '0' {
@@ -145,18 +173,18 @@ func formatCellFloat(value float64) string {
 			continue
 		}
 		if decimal >= 0 && idx > decimal {
-			return strings.TrimSuffix(str[:idx], ".")
+			return bytes.TrimSuffix(dst[:n+idx], []byte("."))
 		}
 		if decimal < 0 {
 			decimal = len(str)
 		}
-		truncated := []byte(str[:decimal])
-		for ; idx < len(truncated); idx++ {
-			truncated[idx] = '0'
+		dst = dst[:n+decimal]
+		for ; idx < decimal; idx++ {
+			dst[n+idx] = '0'
 		}
-		return string(truncated)
+		return dst
 	}
-	return str
+	return dst
 }
 
 // maxCellChars is the most UTF-16 units a cell holds.
@@ -236,14 +264,9 @@ func (s *sheetWriter) sigRowCell(x float64) (rowCell, error) {
 	if math.IsNaN(x) || math.IsInf(x, 0) {
 		return textCell(""), nil
 	}
-	c, err := s.sigCell(sigNum(x))
+	id, err := s.sigStyle(x)
 	if err != nil {
 		return rowCell{}, err
 	}
-	if v, ok := c.(excelize.Cell); ok {
-		if f, ok := v.Value.(float64); ok {
-			return numCell(v.StyleID, f), nil
-		}
-	}
-	return textCell(""), nil
+	return numCell(id, x), nil
 }

@@ -23,6 +23,9 @@ func TestRowWriterMatchesStreamWriter(t *testing.T) {
 		{numCell(0, 1.0/3), numCell(0, 123456789012345678), numCell(0, 1e-20), numCell(0, math.MaxFloat64), numCell(2, math.Copysign(0, -1))},
 		{textCell(" leading"), textCell("trailing\t"), textCell("a&b<c>\"'\nline"), textCell("_x0041_ and _x005F_x0041_ and _xZZZZ_"), textCell("infeasible: limit")},
 		{numCell(4, math.NaN()), numCell(0, math.Inf(1)), textCell(long), textCell("∆ κ 日本")},
+		// Texts written before (the row writer remembers their encoding)
+		// and numbers cut to 15 digits on either side of the point.
+		{textCell(" leading"), textCell("a&b<c>\"'\nline"), textCell(long), numCell(0, 1234567.891234567891), numCell(5, -9876543210.123456789), numCell(0, 12345678901234567890)},
 	}
 	f := excelize.NewFile()
 	defer f.Close()
