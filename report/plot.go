@@ -18,7 +18,6 @@ import (
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
-	"gonum.org/v1/plot/vg/vgimg"
 	"gonum.org/v1/plot/vg/vgsvg"
 
 	"scaleplan/sweep"
@@ -182,11 +181,9 @@ func renderPlot(format string, w, h vg.Length, date string, drawFn func(draw.Can
 	case PlotPDF:
 		c = newPDFCanvas(w, h, pdfTime(date))
 	default:
-		img := vgimg.NewWith(vgimg.UseWH(w, h), vgimg.UseDPI(plotDPI))
-		dc := draw.New(img)
-		dc.FillPolygon(color.White, rectPoints(dc.Rectangle))
-		drawFn(dc)
-		return encodePNG(img.Image())
+		c, img := newImageCanvas(w, h) // white already
+		drawFn(draw.New(c))
+		return encodePNG(img)
 	}
 	dc := draw.New(c)
 	dc.FillPolygon(color.White, rectPoints(dc.Rectangle))

@@ -11,6 +11,10 @@ import (
 	"sync"
 	"sync/atomic"
 
+	"git.sr.ht/~sbinet/gg"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/vgimg"
+
 	"scaleplan/sweep"
 )
 
@@ -27,6 +31,20 @@ func encodePNG(img image.Image) ([]byte, error) {
 		return nil, err
 	}
 	return buf.Bytes(), nil
+}
+
+// newImageCanvas is a PNG map's canvas, drawing straight into one RGBA
+// image of w × h at plotDPI. vgimg.NewWith would make the image and then
+// copy it into its graphics context's own, so that every map being drawn
+// held two (a band chart of many rows is some 5 MB each); the context is
+// set up as NewWith sets up its own (butt line caps, y upwards).
+func newImageCanvas(w, h vg.Length) (*vgimg.Canvas, *image.RGBA) {
+	px := func(l vg.Length) int { return int(l/vg.Inch*vg.Length(plotDPI) + 0.5) }
+	img := image.NewRGBA(image.Rect(0, 0, px(w), px(h)))
+	ctx := gg.NewContextForRGBA(img)
+	ctx.SetLineCapButt()
+	ctx.InvertY()
+	return vgimg.NewWith(vgimg.UseDPI(plotDPI), vgimg.UseImageWithContext(img, ctx)), img
 }
 
 // plotStrategies runs draw for every strategy of a result, at most
