@@ -229,7 +229,7 @@ func limitingCapability(res *sweep.Result, c *sweep.ComboResult) string {
 		if !math.IsNaN(c.AnyFacility) && c.AnyFacility < c.Window[0].Lo {
 			i := nearest(res.Plan.Grid, c.AnyFacility)
 			s += fmt.Sprintf(" A model as large as %s, which the other limits allow, would need %s %s (the other capabilities as they are).",
-				sweep.Scale(c.AnyFacility), HumanNumber(r.Values[i]), r.Unit)
+				sweep.Scale(c.AnyFacility), HumanNumber(r.At(i)), r.Unit)
 		}
 		return s
 	}

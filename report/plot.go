@@ -394,12 +394,19 @@ func sampleIndices(n, max int) []int {
 	return idx
 }
 
-func pick(vals []float64, idx []int) []float64 {
+// pickAt is the values of a series given point by point at the indices
+// idx.
+func pickAt(at func(int) float64, idx []int) []float64 {
 	out := make([]float64, len(idx))
 	for k, i := range idx {
-		out[k] = vals[i]
+		out[k] = at(i)
 	}
 	return out
+}
+
+// pick is the values at the indices idx.
+func pick(vals []float64, idx []int) []float64 {
+	return pickAt(func(i int) float64 { return vals[i] }, idx)
 }
 
 // Edge is a window edge as the maps mark it.

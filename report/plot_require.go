@@ -57,7 +57,7 @@ func RequirementData(res *sweep.Result, sr *sweep.StrategyResult) []RequirementS
 				index[key] = i
 				out = append(out, RequirementSeries{Strategy: sr.Name, Capability: r.Capability, Unit: r.Unit, Limit: r.Limit, X: pick(grid, idx)})
 			}
-			out[i].Curves = append(out[i].Curves, RequirementCurve{Label: comboLabel(c), Needed: pick(r.Values, idx), Have: r.Have, AtLeast: r.AtLeast})
+			out[i].Curves = append(out[i].Curves, RequirementCurve{Label: comboLabel(c), Needed: pickAt(r.At, idx), Have: r.Have, AtLeast: r.AtLeast})
 		}
 	}
 	return out

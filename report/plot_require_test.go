@@ -57,12 +57,12 @@ func TestRequirementData(t *testing.T) {
 					want = r
 				}
 			}
-			if c.Have != want.Have || len(c.Needed) != len(want.Values) {
+			if c.Have != want.Have || len(c.Needed) != want.Len() {
 				t.Fatalf("%s: curve %+v does not match requirement %+v", rs.Capability, c.Have, want.Have)
 			}
 			for i := range c.Needed {
-				if c.Needed[i] != want.Values[i] {
-					t.Errorf("%s at %d: %v, sweep %v", rs.Capability, i, c.Needed[i], want.Values[i])
+				if c.Needed[i] != want.At(i) {
+					t.Errorf("%s at %d: %v, sweep %v", rs.Capability, i, c.Needed[i], want.At(i))
 				}
 			}
 		}

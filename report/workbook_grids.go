@@ -184,7 +184,7 @@ func writeRequirements(f *excelize.File, res *sweep.Result, bold int, rows map[s
 						vals[k] = math.NaN() // an empty cell
 					}
 					for k, r := range c.Requirements {
-						vals[cols[k]] = r.Values[i]
+						vals[cols[k]] = r.At(i)
 					}
 					for _, x := range append([]float64{grid[i]}, vals...) {
 						cell, err := s.sigRowCell(x)
@@ -233,7 +233,7 @@ func FitLines(res *sweep.Result, c *sweep.ComboResult) (need []string, stops []s
 		if !r.AtLeast {
 			dir = "at most"
 		}
-		v := r.Values[i]
+		v := r.At(i)
 		if math.IsNaN(v) {
 			continue
 		}

@@ -96,10 +96,10 @@ func (r *Result) Assume(sr *StrategyResult) Assumptions {
 		a.LargerLimit = c.Limits[c.Limiting[i]].Name
 	}
 	for _, q := range c.Requirements {
-		if i >= len(q.Values) || !(q.Shortfall(i) > 0) {
+		if i >= q.Len() || !(q.Shortfall(i) > 0) {
 			continue
 		}
-		a.LargerNeeds = append(a.LargerNeeds, Need{Capability: q.Capability, Unit: q.Unit, Limit: q.Limit, AtLeast: q.AtLeast, Value: q.Values[i], Have: q.Have})
+		a.LargerNeeds = append(a.LargerNeeds, Need{Capability: q.Capability, Unit: q.Unit, Limit: q.Limit, AtLeast: q.AtLeast, Value: q.At(i), Have: q.Have})
 	}
 	return a
 }

@@ -46,7 +46,7 @@ func TestStudyCavitationTunnelPressure(t *testing.T) {
 	}
 	for i, kL := range res.Plan.Grid {
 		// Found by bisection to 0.1 %.
-		if got, w := req.Values[i], need(kL); math.Abs(got-w) > 2e-3*w {
+		if got, w := req.At(i), need(kL); math.Abs(got-w) > 2e-3*w {
 			t.Errorf("kL %.4g: required tunnel pressure %v Pa, want %v", kL, got, w)
 		}
 	}

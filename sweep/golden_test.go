@@ -103,8 +103,8 @@ func goldenOf(c *ComboResult, best bool) goldenCombo {
 		Window: goldenWindow(c.Window), Failing: c.Failing, Best: best}
 	for _, r := range c.Requirements {
 		gr := goldenRequirement{Capability: r.Capability, Limit: r.Limit, AtLeast: r.AtLeast, Exact: r.Exact}
-		vs := make([]string, len(r.Values))
-		for i, v := range r.Values {
+		vs := make([]string, r.Len())
+		for i, v := range r.All() {
 			vs[i] = fullPrecision(v)
 		}
 		gr.Values = strings.Join(vs, " ")

@@ -17,8 +17,6 @@ type Requirement struct {
 	// value (a carriage speed, a tank depth), false when at most (a
 	// minimum carriage speed, a minimum ice thickness).
 	AtLeast bool
-	// Values is the required capability at each grid scale.
-	Values []float64
 	// Have is the facility's own value.
 	Have float64
 	// Exact is true when the requirement comes from inverting a
@@ -26,13 +24,48 @@ type Requirement struct {
 	// alone in a side that is a product of powers; otherwise it was
 	// found by bisection.
 	Exact bool
+	// The required capability at each grid scale (At): from the limit's
+	// log-linear form, log10 required = log10 Have − (A + B·u)/e at u =
+	// log10 kL of the grid (us, the plan's, shared), or, for a limit that
+	// is not a product of powers, stored.
+	values []float64
+	us     []float64
+	a, b   float64
+	e      float64
+}
+
+// Len is the number of grid scales.
+func (r Requirement) Len() int {
+	if r.values != nil {
+		return len(r.values)
+	}
+	return len(r.us)
+}
+
+// At is the required capability at grid point i (NaN where it could not
+// be found).
+func (r Requirement) At(i int) float64 {
+	if r.values != nil {
+		return r.values[i]
+	}
+	// margin moves by e·Δlog10(capability): solve margin = 0.
+	return r.Have * math.Pow(10, -(r.a+r.b*r.us[i])/r.e)
+}
+
+// All is the required capability at every grid scale.
+func (r Requirement) All() []float64 {
+	out := make([]float64, r.Len())
+	for i := range out {
+		out[i] = r.At(i)
+	}
+	return out
 }
 
 // Shortfall returns how far the facility falls short at grid point i, as
 // a ratio: 0.12 means the capability is 12 % short (a carriage 12 % too
 // slow); 0 or less means it fits.
 func (r Requirement) Shortfall(i int) float64 {
-	v := r.Values[i]
+	v := r.At(i)
 	if math.IsNaN(v) || v <= 0 {
 		return math.NaN()
 	}
@@ -53,17 +86,15 @@ func (x *combo) requirements(ctx context.Context, limits []compiled, us []float6
 	var out []Requirement
 	for _, rf := range forms {
 		req := rf.req
-		req.Values = make([]float64, len(us))
 		switch rf.how {
 		case solvedLinear:
-			A, B := rf.l.info.A, rf.l.info.B
-			for i, u := range us {
-				// margin moves by e·Δlog10(capability): solve margin = 0.
-				req.Values[i] = req.Have * math.Pow(10, -(A+B*u)/rf.e)
-			}
+			// Kept as its form, not as values at every grid scale.
+			req.us, req.a, req.b, req.e = us, rf.l.info.A, rf.l.info.B, rf.e
 		case solvedIsolated:
+			req.values = make([]float64, len(us))
 			x.invertIsolated(rf.l, rf.e, req.Have, us, &req)
 		default:
+			req.values = make([]float64, len(us))
 			if !x.invertSampled(ctx, rf.l, req.Capability, req.Have, us, &req) {
 				continue
 			}
@@ -87,7 +118,7 @@ const (
 // which limit and capability, and how it is solved (for a products-of-
 // powers limit, log10 required = log10 have − (A + B·log10 kL)/e).
 type requirementForm struct {
-	req Requirement // without Values
+	req Requirement // without its values
 	l   compiled
 	how int
 	e   float64 // the capability's exponent in the margin
@@ -166,10 +197,10 @@ func (x *combo) invertIsolated(l compiled, eff, have float64, us []float64, req 
 	for i, u := range us {
 		t := -l.marginAt(i, u) / eff // log10(required / have)
 		if math.IsNaN(t) || t < -6 || t > 6 {
-			req.Values[i] = math.NaN()
+			req.values[i] = math.NaN()
 			continue
 		}
-		req.Values[i] = have * math.Pow(10, t)
+		req.values[i] = have * math.Pow(10, t)
 	}
 }
 
@@ -196,7 +227,7 @@ func (x *combo) invertSampled(ctx context.Context, l compiled, n string, have fl
 		lo, hi := math.Log(have)-math.Log(1e6), math.Log(have)+math.Log(1e6)
 		okLo, okHi := margin(u, math.Exp(lo)) >= 0, margin(u, math.Exp(hi)) >= 0
 		if okLo == okHi {
-			req.Values[i] = math.NaN()
+			req.values[i] = math.NaN()
 			continue
 		}
 		for k := 0; k < 100 && hi-lo > 1e-3/4; k++ {
@@ -207,7 +238,7 @@ func (x *combo) invertSampled(ctx context.Context, l compiled, n string, have fl
 				hi = mid
 			}
 		}
-		req.Values[i] = math.Exp((lo + hi) / 2)
+		req.values[i] = math.Exp((lo + hi) / 2)
 	}
 	return true
 }

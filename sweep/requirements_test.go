@@ -35,11 +35,11 @@ func TestTugRequirementsByHand(t *testing.T) {
 	for _, i := range []int{0, len(grid) / 2, len(grid) - 1} {
 		kL := grid[i]
 		vm := vp / math.Sqrt(kL)
-		if !relClose(speed.Values[i], vm, 1e-9) {
-			t.Errorf("kL %.4g: required carriage speed %v, want %v", kL, speed.Values[i], vm)
+		if !relClose(speed.At(i), vm, 1e-9) {
+			t.Errorf("kL %.4g: required carriage speed %v, want %v", kL, speed.At(i), vm)
 		}
-		if want := vm * vm / (0.25 * StandardGravity); !relClose(depth.Values[i], want, 1e-9) {
-			t.Errorf("kL %.4g: required depth %v, want %v", kL, depth.Values[i], want)
+		if want := vm * vm / (0.25 * StandardGravity); !relClose(depth.At(i), want, 1e-9) {
+			t.Errorf("kL %.4g: required depth %v, want %v", kL, depth.At(i), want)
 		}
 	}
 }
@@ -92,8 +92,8 @@ func TestRunLengthRequirementExact(t *testing.T) {
 	}
 	need := 12*1852.0/3600*60 + 3*28
 	for i, kL := range res.Plan.Grid {
-		if want := need / kL; !relClose(r.Values[i], want, 1e-12) {
-			t.Errorf("kL %.4g: tank length %v, want %v", kL, r.Values[i], want)
+		if want := need / kL; !relClose(r.At(i), want, 1e-12) {
+			t.Errorf("kL %.4g: tank length %v, want %v", kL, r.At(i), want)
 		}
 	}
 }
