@@ -30,18 +30,25 @@ const (
 // own, that limit is the budget.
 const DefaultMemoryBudget = 768 << 20
 
-// bytesPerPoint is what the sweep and its outputs hold per kL point and
-// combination (margins, limiting limits, costs, requirements, the maps);
-// bytesPerAxisPoint what they hold per kL point, axis value and
-// combination (the margins at every axis value, for the contour map);
-// bytesPerGridPoint what they hold per kL point whatever the number of
-// combinations (the grid, its labels, the workbook's map rows). Measured
-// as the peak memory of `scaleplan run` on synthetic studies (see
-// DEVELOPERS.md, "Inputs as people type them") and rounded up.
+// The memory a study's sweep and outputs need, measured as the peak RSS
+// of `scaleplan run` writing every output on synthetic studies (see
+// DEVELOPERS.md, "Inputs as people type them") and rounded up:
+// bytesPerPoint per kL point and combination (margins, limiting limits,
+// costs, requirements not kept as forms); bytesPerGridPoint per kL point
+// whatever the number of combinations (the grid, its labels, the
+// workbook's map rows); bytesPerAxisValue per axis value and combination
+// (its window there); bytesPerMapPoint per kL point, axis value and
+// strategy (the margin rows of the one combination a strategy's contour
+// map draws, swept when it is drawn); baseBytes the program, the library,
+// the fonts and the images of the maps being drawn. The margins at every
+// axis value are not kept, so the need grows with the axis only through
+// the windows and the contour maps.
 const (
-	bytesPerPoint     = 160
-	bytesPerAxisPoint = 16
-	bytesPerGridPoint = 96
+	bytesPerPoint     = 80
+	bytesPerGridPoint = 160
+	bytesPerAxisValue = 96
+	bytesPerMapPoint  = 16
+	baseBytes         = 64 << 20
 	// bytesPerDraw is what a draw of the uncertain inputs holds besides 8
 	// bytes per input (a slice header).
 	bytesPerDraw = 24
@@ -124,10 +131,11 @@ func (p *Plan) memoryNeed() (sweep, draws float64, points, combos int) {
 		}
 	}
 	perCombo := float64(st.Points) * bytesPerPoint
+	sweep = baseBytes + float64(combos)*perCombo + float64(st.Points)*bytesPerGridPoint
 	if st.Axis != "" {
-		perCombo += float64(points) * bytesPerAxisPoint
+		axis := float64(max(1, st.AxisPoints))
+		sweep += float64(combos)*axis*bytesPerAxisValue + float64(len(p.Strategies))*float64(st.Points)*axis*bytesPerMapPoint
 	}
-	sweep = float64(combos)*perCombo + float64(st.Points)*bytesPerGridPoint
 	if st.Samples > 0 && len(p.Uncertain) > 0 {
 		// Held by each combination being sampled at once (one per core).
 		perDraw := float64(bytesPerDraw + 8*len(p.Uncertain))
@@ -157,7 +165,7 @@ func (p *Plan) checkMemory(ps *study.Problems) {
 		return
 	}
 	ps.Add(st.Cell("points"), "the sweep would need about %s of memory (%d grid points × %d combinations), more than the soft limit of %s: reduce points to at most %d (or axis_points, or the candidates and strategies), or raise the limit with GOMEMLIMIT",
-		mib(need), points, combos, mib(budget), max(2, int(float64(st.Points)*budget/need)))
+		mib(need), points, combos, mib(budget), max(2, int(float64(st.Points)*(budget-baseBytes)/(need-baseBytes))))
 }
 
 func mib(b float64) string {
