@@ -53,12 +53,12 @@ type IsoMeasure struct {
 // one when it has axis data, else the one whose margin peaks highest.
 func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 	p := res.Plan
-	pickC, pickRows := contourCombo(p, sr)
+	xi := displayIndices(len(p.Grid))
+	yi := displayIndices(len(p.AxisValues))
+	pickC, pickRows := contourCombo(p, sr, xi)
 	if pickC == nil {
 		return nil
 	}
-	xi := displayIndices(len(p.Grid))
-	yi := displayIndices(len(p.AxisValues))
 	cm := &ContourMap{Strategy: sr.Name, Label: comboLabel(pickC), Combo: pickC,
 		X: pick(p.Grid, xi), Y: pick(p.AxisValues, yi), Axis: p.Settings.Axis, Unit: axisUnit(p),
 		YLog: !p.Settings.AxisLinear}
@@ -66,7 +66,7 @@ func ContourData(res *sweep.Result, sr *sweep.StrategyResult) *ContourMap {
 		cm.YLog = cm.YLog && v > 0
 	}
 	cm.Edges = windowEdgeLines(pickC.AxisWindows, p.AxisValues, yi)
-	cm.Z = thinMarginGrid(pickRows, xi, yi)
+	cm.Z = thinMarginGrid(pickRows, yi)
 	cm.Levels = marginLevels(cm.Z)
 	cm.Iso = isoMeasures(p, pickC, xi, yi)
 	return cm

@@ -2,6 +2,7 @@ package report
 
 import (
 	"math"
+	"slices"
 	"sort"
 
 	"scaleplan/sweep"
@@ -10,22 +11,29 @@ import (
 // The steps of ContourData, in the order it takes them.
 
 // contourCombo picks the combination a strategy's contour map shows and
-// its margin rows: the recommended one when it has axis data, else the one
-// whose margin peaks highest. It returns nil when none has two-axis data.
-func contourCombo(p *sweep.Plan, sr *sweep.StrategyResult) (*sweep.ComboResult, [][]float64) {
-	// The margin rows are computed on demand, for the combinations drawn.
+// its margin rows thinned to the displayed columns xi: the recommended one
+// when it has axis data, else the one whose margin peaks highest. It
+// returns nil when none has two-axis data. Each row is thinned as it is
+// swept, so the map holds axis values × displayed columns, not the grid.
+func contourCombo(p *sweep.Plan, sr *sweep.StrategyResult, xi []int) (*sweep.ComboResult, [][]float64) {
 	rowsOf := func(c *sweep.ComboResult) [][]float64 {
-		if c == nil {
+		if c == nil || len(p.AxisValues) < 2 {
 			return nil
 		}
-		rows := c.AxisMarginRows()
-		if len(rows) < 2 || len(rows) != len(p.AxisValues) {
-			return nil
-		}
-		for _, row := range rows {
-			if len(row) != len(p.Grid) {
-				return nil
+		rows := make([][]float64, len(p.AxisValues))
+		ok := true
+		done := c.EachAxisMarginRow(func(i int, row []float64) {
+			if i >= len(rows) || len(row) != len(p.Grid) {
+				ok = false
+				return
 			}
+			rows[i] = thinMargins(row, xi)
+		})
+		for _, r := range rows {
+			ok = ok && r != nil
+		}
+		if !done || !ok {
+			return nil
 		}
 		return rows
 	}
@@ -52,21 +60,20 @@ func contourCombo(p *sweep.Plan, sr *sweep.StrategyResult) (*sweep.ComboResult, 
 	return pickC, pickRows
 }
 
-// thinMarginGrid thins the margin rows to the displayed columns xi and
-// rows yi.
-func thinMarginGrid(pickRows [][]float64, xi, yi []int) [][]float64 {
-	// Thin the rows like the columns: each kept row takes the smallest
-	// margin of the rows it stands for.
-	cols := make([][]float64, len(pickRows))
-	for j, row := range pickRows {
-		cols[j] = thinMargins(row, xi)
+// thinMarginGrid thins margin rows already thinned to the displayed
+// columns to the displayed rows yi: each kept row takes the smallest
+// margin of the rows it stands for.
+func thinMarginGrid(cols [][]float64, yi []int) [][]float64 {
+	nx := 0
+	if len(cols) > 0 {
+		nx = len(cols[0])
 	}
 	z := make([][]float64, len(yi))
 	for j := range z {
-		z[j] = make([]float64, len(xi))
+		z[j] = make([]float64, nx)
 	}
 	col := make([]float64, len(cols))
-	for i := range xi {
+	for i := range nx {
 		for j := range cols {
 			col[j] = cols[j][i]
 		}
@@ -102,7 +109,22 @@ func marginLevels(z [][]float64) []float64 {
 // displayed grid, by name, each with its iso-line levels; measures without
 // a level inside their range are left out.
 func isoMeasures(p *sweep.Plan, c *sweep.ComboResult, xi, yi []int) []IsoMeasure {
-	measures := c.AxisMeasureRows()
+	// Each measure's rows, picked at the displayed columns as they are
+	// swept.
+	measures := map[string][][]float64{}
+	c.EachAxisMeasureRow(func(i int, rows map[string][]float64) {
+		for n, row := range rows {
+			if len(row) != len(p.Grid) {
+				continue
+			}
+			if measures[n] == nil {
+				measures[n] = make([][]float64, len(p.AxisValues))
+			}
+			if i < len(p.AxisValues) {
+				measures[n][i] = pick(row, xi)
+			}
+		}
+	})
 	names := make([]string, 0, len(measures))
 	for n := range measures {
 		names = append(names, n)
@@ -115,15 +137,15 @@ func isoMeasures(p *sweep.Plan, c *sweep.ComboResult, xi, yi []int) []IsoMeasure
 	var iso []IsoMeasure
 	for _, n := range names {
 		rows := measures[n]
-		if len(rows) != len(p.AxisValues) {
+		if slices.ContainsFunc(rows, func(r []float64) bool { return r == nil }) {
 			continue
 		}
 		im := IsoMeasure{Name: n, Unit: units[n], LogZ: make([][]float64, len(yi))}
 		mlo, mhi := math.Inf(1), math.Inf(-1)
 		for j, yj := range yi {
 			im.LogZ[j] = make([]float64, len(xi))
-			for i, xk := range xi {
-				v := rows[yj][xk]
+			for i := range xi {
+				v := rows[yj][i]
 				if v > 0 && !math.IsInf(v, 0) {
 					im.LogZ[j][i] = math.Log10(v)
 					mlo, mhi = math.Min(mlo, im.LogZ[j][i]), math.Max(mhi, im.LogZ[j][i])

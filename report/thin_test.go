@@ -3,9 +3,11 @@ package report
 import (
 	"fmt"
 	"math"
+	"reflect"
 	"testing"
 
 	"scaleplan/sweep"
+	"scaleplan/sweep/study"
 )
 
 // TestThinMargins checks the buckets by hand: 9 points to 3 samples at
@@ -53,5 +55,62 @@ func TestWindowEdgeLines(t *testing.T) {
 	}
 	if got := windowEdgeLines(windows[:2], axis, []int{0, 1}); got != nil {
 		t.Errorf("windows not one per axis value give %v, want none", got)
+	}
+}
+
+// The contour map thins each margin row as it is swept; its grid must be
+// the one thinning the full rows gives (columns, then rows, each kept
+// point taking the smallest margin it stands for), and its iso-lines the
+// measures at the displayed points, for the scenarios with a second axis
+// and a synthetic study whose strategies have no window.
+func TestContourThinnedAsSwept(t *testing.T) {
+	results := []*sweep.Result{scenarioResult(t, "conductor"), scenarioResult(t, "estuary"), runStudy(t, study.Synthetic(301, 9, 3, 4))}
+	drawn := 0
+	for _, res := range results {
+		p := res.Plan
+		for _, sr := range res.Strategies {
+			cm := ContourData(res, sr)
+			if cm == nil {
+				continue
+			}
+			drawn++
+			xi, yi := displayIndices(len(p.Grid)), displayIndices(len(p.AxisValues))
+			full := cm.Combo.AxisMarginRows()
+			cols := make([][]float64, len(full))
+			for j, row := range full {
+				cols[j] = thinMargins(row, xi)
+			}
+			want := make([][]float64, len(yi))
+			for j := range want {
+				want[j] = make([]float64, len(xi))
+			}
+			col := make([]float64, len(cols))
+			for i := range xi {
+				for j := range cols {
+					col[j] = cols[j][i]
+				}
+				for j, v := range thinMargins(col, yi) {
+					want[j][i] = v
+				}
+			}
+			if !reflect.DeepEqual(cm.Z, want) {
+				t.Errorf("%s %s: contour grid differs from thinning the full rows", res.Name, sr.Name)
+			}
+			measures := cm.Combo.AxisMeasureRows()
+			for _, im := range cm.Iso {
+				rows := measures[im.Name]
+				for j, yj := range yi {
+					for i, xk := range xi {
+						v, got := rows[yj][xk], im.LogZ[j][i]
+						if v > 0 && !math.IsInf(v, 0) && got != math.Log10(v) || !(v > 0 && !math.IsInf(v, 0)) && !math.IsNaN(got) {
+							t.Fatalf("%s %s: measure %s at (%d, %d) is %v, the full rows give %v", res.Name, sr.Name, im.Name, j, i, got, v)
+						}
+					}
+				}
+			}
+		}
+	}
+	if drawn < 4 {
+		t.Errorf("only %d contour maps drawn", drawn)
 	}
 }

@@ -130,7 +130,8 @@ type axisSweep struct {
 	lp       *limitPlan // nil when the limits are compiled per axis value
 	// peak is the largest margin over the grid and the axis, found by
 	// choose when no axis value has a window (NaN when one has: swept on
-	// demand); buf is choose's scratch for it (peak.go).
+	// demand); buf is choose's scratch for it, made when a peak needs a
+	// pass over the grid (peak.go).
 	peak float64
 	buf  []float64
 }
@@ -175,6 +176,24 @@ func (a *axisSweep) margins() [][]float64 {
 	return rows
 }
 
+// eachMeasures evaluates every study measure over the grid at every axis
+// value and hands them to fn, by measure name (the slices are fn's to
+// keep); false if a value fails.
+func (a *axisSweep) eachMeasures(fn func(i int, rows map[string][]float64)) bool {
+	for i, v := range a.axes {
+		x, err := a.combo(v)
+		if err != nil {
+			return false
+		}
+		rows := make(map[string][]float64, len(a.plan.Measures))
+		for _, m := range a.plan.Measures {
+			rows[m.Name] = x.measureGrid(m, a.us)
+		}
+		fn(i, rows)
+	}
+	return true
+}
+
 // measures evaluates every study measure over the grid at every axis
 // value.
 func (a *axisSweep) measures() map[string][][]float64 {
@@ -182,14 +201,13 @@ func (a *axisSweep) measures() map[string][][]float64 {
 		return nil
 	}
 	out := map[string][][]float64{}
-	for _, v := range a.axes {
-		x, err := a.combo(v)
-		if err != nil {
-			return nil
+	ok := a.eachMeasures(func(_ int, rows map[string][]float64) {
+		for n, r := range rows {
+			out[n] = append(out[n], r)
 		}
-		for _, m := range a.plan.Measures {
-			out[m.Name] = append(out[m.Name], x.measureGrid(m, a.us))
-		}
+	})
+	if !ok {
+		return nil
 	}
 	return out
 }
@@ -203,6 +221,50 @@ func (c *ComboResult) AxisMarginRows() [][]float64 {
 		return c.AxisMargins
 	}
 	return c.axis.margins()
+}
+
+// EachAxisMarginRow hands fn, with a second axis, the margin of every grid
+// point at each axis value in turn (the row is fn's to keep), sweeping the
+// axis again without keeping the rows: a map thins each row to what it
+// shows as it comes, so its memory does not grow with the grid. It
+// returns false without a second axis or when a value fails.
+func (c *ComboResult) EachAxisMarginRow(fn func(i int, row []float64)) bool {
+	if c.AxisMargins != nil {
+		for i, row := range c.AxisMargins {
+			fn(i, row)
+		}
+		return true
+	}
+	if c.axis == nil {
+		return false
+	}
+	return c.axis.each(fn)
+}
+
+// EachAxisMeasureRow is EachAxisMarginRow for the study's measures at
+// model scale: fn gets each measure's row by name. It returns false
+// without a second axis, without measures, or when a value fails.
+func (c *ComboResult) EachAxisMeasureRow(fn func(i int, rows map[string][]float64)) bool {
+	if c.AxisMeasures != nil {
+		n := 0
+		for _, rows := range c.AxisMeasures {
+			n = max(n, len(rows))
+		}
+		for i := range n {
+			at := map[string][]float64{}
+			for name, rows := range c.AxisMeasures {
+				if i < len(rows) {
+					at[name] = rows[i]
+				}
+			}
+			fn(i, at)
+		}
+		return true
+	}
+	if c.axis == nil || len(c.axis.plan.Measures) == 0 {
+		return false
+	}
+	return c.axis.eachMeasures(fn)
 }
 
 // AxisMarginPeak returns, with a second axis, the largest margin over the
@@ -297,10 +359,7 @@ func (a *axisSweep) choose(ctx context.Context, cache sampleCache) (bestI int, w
 		}
 		x.windowOnly = len(a.axes) > 1
 		if x.windowOnly {
-			if a.buf == nil {
-				a.buf = make([]float64, len(a.us))
-			}
-			x.peakBuf = a.buf
+			x.peakBuf = &a.buf
 		}
 		var scratch []int
 		if !x.windowOnly {

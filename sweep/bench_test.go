@@ -9,7 +9,7 @@ import (
 	"scaleplan/sweep/study"
 )
 
-func preparedSynthetic(b *testing.B, points, axis, cands, strats int) *Plan {
+func preparedSynthetic(b testing.TB, points, axis, cands, strats int) *Plan {
 	b.Helper()
 	lib, err := materials.Default()
 	if err != nil {

@@ -69,12 +69,14 @@
 // of the other limits, without touching the grid (axisSweep.choose); the
 // grid margins are computed once, at the chosen axis value (they feed the
 // map sheets). The margins and measures at the other axis values are not
-// kept: ComboResult.AxisMarginRows and AxisMeasureRows sweep them again on
-// demand, for the one combination a contour map draws. Peak memory
-// therefore does not grow with the number of axis values.
+// kept: ComboResult.EachAxisMarginRow and EachAxisMeasureRow sweep them
+// again on demand, a row at a time, for the one combination a contour map
+// draws, which thins each row as it comes. The margin peak a contour map
+// picks by is found with the windows (peak.go). Peak memory therefore does
+// not grow with the number of axis values.
 //
 // Requirements: a products-of-powers limit gives required = have ·
-// 10^(−(A + B·log10 kL)/e); a limit whose capability stands alone in a
+// 10^(−(A + B·log10 kL)/e), kept as that form (Requirement.At); a limit whose capability stands alone in a
 // side that is a product of powers ("a·b + 3·c <= tank_length") gives
 // required = have · 10^(−margin/e) from its grid margins, exactly;
 // bisection is left for the rest. requirementForms finds all this from

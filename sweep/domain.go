@@ -36,19 +36,18 @@ const DefaultMemoryBudget = 768 << 20
 // bytesPerPoint per kL point and combination (margins, limiting limits,
 // costs, requirements not kept as forms); bytesPerGridPoint per kL point
 // whatever the number of combinations (the grid, its labels, the
-// workbook's map rows); bytesPerAxisValue per axis value and combination
-// (its window there); bytesPerMapPoint per kL point, axis value and
-// strategy (the margin rows of the one combination a strategy's contour
-// map draws, swept when it is drawn); baseBytes the program, the library,
-// the fonts and the images of the maps being drawn. The margins at every
-// axis value are not kept, so the need grows with the axis only through
-// the windows and the contour maps.
+// workbook's map rows, the row a contour map is sweeping); bytesPerAxisValue
+// per axis value and combination (its window there, and the thinned rows
+// of the contour maps); baseBytes the program, the library, the fonts, the
+// images of the maps being drawn and the garbage collector's headroom. The
+// margins at every axis value are not kept (a contour map thins each row
+// as it is swept), so the need grows with the axis only through the
+// windows.
 const (
 	bytesPerPoint     = 80
 	bytesPerGridPoint = 160
 	bytesPerAxisValue = 96
-	bytesPerMapPoint  = 16
-	baseBytes         = 64 << 20
+	baseBytes         = 96 << 20
 	// bytesPerDraw is what a draw of the uncertain inputs holds besides 8
 	// bytes per input (a slice header).
 	bytesPerDraw = 24
@@ -134,7 +133,7 @@ func (p *Plan) memoryNeed() (sweep, draws float64, points, combos int) {
 	sweep = baseBytes + float64(combos)*perCombo + float64(st.Points)*bytesPerGridPoint
 	if st.Axis != "" {
 		axis := float64(max(1, st.AxisPoints))
-		sweep += float64(combos)*axis*bytesPerAxisValue + float64(len(p.Strategies))*float64(st.Points)*axis*bytesPerMapPoint
+		sweep += float64(combos) * axis * bytesPerAxisValue
 	}
 	if st.Samples > 0 && len(p.Uncertain) > 0 {
 		// Held by each combination being sampled at once (one per core).

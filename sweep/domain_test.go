@@ -114,10 +114,10 @@ func TestMemoryRefusedUpFront(t *testing.T) {
 		t.Errorf("the refused check allocated %d bytes", alloc)
 	}
 	got := studytest.ProblemLines(t, err)
-	// 10^7 points × (80 + 160) bytes = 2.4e9 bytes = 2288.8 MiB, and 64 MiB
-	// for the program: 2353 MiB. At most 10^7 × (768 − 64) MiB / 2288.82
-	// MiB = 3075822 points fit.
-	want := "Study!B6: the sweep would need about 2353 MiB of memory (10000000 grid points × 1 combinations), more than the soft limit of 768 MiB: reduce points to at most 3075822 "
+	// 10^7 points × (80 + 160) bytes = 2.4e9 bytes = 2288.82 MiB, and 96
+	// MiB for the program: 2385 MiB. At most 10^7 × (768 − 96) MiB /
+	// 2288.82 MiB = 2936012 points fit.
+	want := "Study!B6: the sweep would need about 2385 MiB of memory (10000000 grid points × 1 combinations), more than the soft limit of 768 MiB: reduce points to at most 2936012 "
 	if len(got) != 1 || !strings.HasPrefix(got[0], want) {
 		t.Errorf("want %q, got:\n  %s", want, strings.Join(got, "\n  "))
 	}

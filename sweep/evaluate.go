@@ -44,7 +44,7 @@ type combo struct {
 	// value (analytic.go); windowOnly stops sweep at the window.
 	limitPlan  *limitPlan
 	windowOnly bool
-	peakBuf    []float64 // scratch for the margin peak (peak.go)
+	peakBuf    *[]float64 // scratch for the margin peak (peak.go)
 	// unmet is set by bandFailing: the requirement no candidate meets and
 	// what the library can do about it (recipe_search.go).
 	unmet *Unmet

@@ -221,7 +221,7 @@ func sample(ctx context.Context, limits []compiled, us []float64, cache sampleCa
 			}
 			l.vals[i] = margin(u)
 		}
-		l.concave = concaveSamples(l.vals)
+		l.concave = concaveSamples(us, l.vals)
 		l.set = sampledFrom(us, l.vals, margin, l.info.Name)
 		if l.set == nil {
 			l.set = []uInterval{}

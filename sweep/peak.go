@@ -64,8 +64,9 @@ func concavePeak(lines []line, lo, hi float64) (float64, float64) {
 // gridPeak is the largest margin over the grid us of the limits with the
 // similarity conditions' term: −Inf when a condition fails (failed), and
 // −|u − condU| when one pins log10 kL to condU (NaN: none). It equals the
-// largest value of the margins marginGrid and sweep compute.
-func gridPeak(limits []compiled, us []float64, condU float64, failed bool, buf []float64) float64 {
+// largest value of the margins marginGrid and sweep compute. buf (nil, or
+// a slice made on first need) is scratch for a pass over the grid.
+func gridPeak(limits []compiled, us []float64, condU float64, failed bool, buf *[]float64) float64 {
 	if failed || len(us) == 0 {
 		return math.Inf(-1)
 	}
@@ -102,7 +103,8 @@ func gridPeak(limits []compiled, us []float64, condU float64, failed bool, buf [
 // sequences is concave, so a ternary search over the grid points finds
 // its peak in O(limits · log points). Samples that are concave only to
 // rounding (concaveSamples) can put the peak found a rounding error below
-// the largest sample.
+// the largest sample. A function concave in u peaks between two grid
+// points where it is equal, whatever the grid's steps.
 func concaveGridPeak(limits []compiled, us []float64, condU float64) float64 {
 	for _, l := range limits {
 		if !l.info.Linear && (l.vals == nil || !l.concave) {
@@ -145,17 +147,19 @@ func concaveGridPeak(limits []compiled, us []float64, condU float64) float64 {
 	return peak
 }
 
-// concaveSamples says whether margins sampled along the grid are finite
-// and concave (every second difference at most a rounding error of the
-// values).
-func concaveSamples(v []float64) bool {
+// concaveSamples says whether margins v sampled at the grid us are finite
+// and concave: every slope between neighbours no steeper upwards than the
+// one before, to a rounding error of the values (the grid's steps need not
+// be equal: its last point is the range's end).
+func concaveSamples(us, v []float64) bool {
 	for i, x := range v {
 		if math.IsNaN(x) || math.IsInf(x, 0) {
 			return false
 		}
 		if i >= 2 {
-			d2 := x - 2*v[i-1] + v[i-2]
-			if d2 > 1e-12*(math.Abs(x)+math.Abs(v[i-1])+math.Abs(v[i-2])+1) {
+			// slope (i−1, i) ≤ slope (i−2, i−1), multiplied out.
+			d := (x-v[i-1])*(us[i-1]-us[i-2]) - (v[i-1]-v[i-2])*(us[i]-us[i-1])
+			if d > 1e-12*(math.Abs(x)+math.Abs(v[i-1])+math.Abs(v[i-2])+1)*(us[i]-us[i-2]) {
 				return false
 			}
 		}
@@ -178,11 +182,18 @@ func gridMargin(lines []line, u, condU float64) float64 {
 }
 
 // scanPeak is gridPeak by passes over the grid, one per limit as in
-// marginGrid, for limits that are not all products of powers; buf (nil, or
-// as long as us) is scratch.
-func scanPeak(limits []compiled, us []float64, condU float64, buf []float64) float64 {
+// marginGrid, for limits that are not all products of powers; scratch
+// (nil, or a slice kept between calls) holds the margins.
+func scanPeak(limits []compiled, us []float64, condU float64, scratch *[]float64) float64 {
+	var buf []float64
+	if scratch != nil {
+		buf = *scratch
+	}
 	if len(buf) != len(us) {
 		buf = make([]float64, len(us))
+		if scratch != nil {
+			*scratch = buf
+		}
 	}
 	for i := range buf {
 		buf[i] = math.Inf(1)

@@ -42,9 +42,10 @@ func TestGridPeakEqualsScan(t *testing.T) {
 // agree with the pass to a rounding error.
 func TestGridPeakWithSampledLimits(t *testing.T) {
 	rng := rand.New(rand.NewPCG(3, 5))
+	// Unequal steps, as a grid whose last point is the range's end has.
 	us := make([]float64, 2000)
 	for i := range us {
-		us[i] = math.Log10(4) + (math.Log10(80)-math.Log10(4))*float64(i)/float64(len(us)-1)
+		us[i] = math.Log10(4) + (math.Log10(80)-math.Log10(4))*(float64(i)+0.4*rng.Float64())/float64(len(us))
 	}
 	for trial := range 500 {
 		n := 1 + rng.IntN(6)
@@ -64,7 +65,7 @@ func TestGridPeakWithSampledLimits(t *testing.T) {
 			}
 		}
 		limits[n].vals = vals
-		limits[n].concave = concaveSamples(vals)
+		limits[n].concave = concaveSamples(us, vals)
 		if limits[n].concave == wavy {
 			t.Fatalf("trial %d: samples concave %v, want %v", trial, limits[n].concave, !wavy)
 		}
