@@ -59,8 +59,9 @@ func TestWindowEdgeLines(t *testing.T) {
 }
 
 // The contour map thins each margin row as it is swept; its grid must be
-// the one thinning the full rows gives (columns, then rows, each kept
-// point taking the smallest margin it stands for), and its iso-lines the
+// the one thinning the full rows gives (columns from the whole rows, then
+// rows, each kept point taking the smallest margin it stands for; the
+// rows as thinMarginGrid does), and its iso-lines the
 // measures at the displayed points, for the scenarios with a second axis
 // and a synthetic study whose strategies have no window.
 func TestContourThinnedAsSwept(t *testing.T) {
@@ -80,20 +81,7 @@ func TestContourThinnedAsSwept(t *testing.T) {
 			for j, row := range full {
 				cols[j] = thinMargins(row, xi)
 			}
-			want := make([][]float64, len(yi))
-			for j := range want {
-				want[j] = make([]float64, len(xi))
-			}
-			col := make([]float64, len(cols))
-			for i := range xi {
-				for j := range cols {
-					col[j] = cols[j][i]
-				}
-				for j, v := range thinMargins(col, yi) {
-					want[j][i] = v
-				}
-			}
-			if !reflect.DeepEqual(cm.Z, want) {
+			if want := thinMarginGrid(cols, yi); !reflect.DeepEqual(cm.Z, want) {
 				t.Errorf("%s %s: contour grid differs from thinning the full rows", res.Name, sr.Name)
 			}
 			measures := cm.Combo.AxisMeasureRows()
