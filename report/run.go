@@ -38,25 +38,7 @@ func Edges(w sweep.Window) (large, small string) {
 }
 
 // Candidate names a combination's candidate pair and facility.
-func Candidate(c *sweep.ComboResult) string {
-	var parts []string
-	for _, s := range []string{c.Medium, c.Material} {
-		if s != "" {
-			parts = append(parts, s)
-		}
-	}
-	s := strings.Join(parts, " / ")
-	if c.Facility != "" {
-		if s != "" {
-			s += " in "
-		}
-		s += c.Facility
-	}
-	if s == "" {
-		s = "-"
-	}
-	return s
-}
+func Candidate(c *sweep.ComboResult) string { return c.Label() }
 
 // Money prints a cost with its currency, or "-" when there is none.
 func Money(x float64, currency string) string {
@@ -73,14 +55,17 @@ func WriteRunText(w io.Writer, res *sweep.Result) error {
 	fmt.Fprintf(b, "Study %s (%s)\n", res.Name, Convention)
 	tw := tabwriter.NewWriter(b, 2, 4, 2, ' ', 0)
 	fmt.Fprintln(tw, "rank\tstrategy\ttechnique\twindow\tlarge-model edge\tsmall-model edge\trecommended\tmodel length\tcost\tbest candidate")
+	var none []string
 	for _, sr := range res.Strategies {
 		c := sr.Best
 		if c == nil {
+			// The reason goes below the table, which it would widen.
 			reason := "no feasible scale"
 			if why := firstFailing(sr); why != "" {
 				reason = why
 			}
-			fmt.Fprintf(tw, "%s\t%s\t%s\tnone\t%s\t\t\t\t\t\n", rankText(res, sr), sr.Name, sr.Technique, reason)
+			none = append(none, fmt.Sprintf("No window for %s: %s\n", sr.Name, reason))
+			fmt.Fprintf(tw, "%s\t%s\t%s\tnone\t(below)\t\t\t\t\t\n", rankText(res, sr), sr.Name, sr.Technique)
 			continue
 		}
 		large, small := Edges(c.Window)
@@ -92,6 +77,9 @@ func WriteRunText(w io.Writer, res *sweep.Result) error {
 			sweep.Scale(c.Recommended), length, Money(c.Cost, st.Currency), Candidate(c))
 	}
 	tw.Flush()
+	for _, l := range none {
+		b.WriteString(l)
+	}
 	for _, l := range recipeLines(res) {
 		b.WriteString(l + "\n")
 	}
@@ -109,8 +97,7 @@ func rankText(res *sweep.Result, sr *sweep.StrategyResult) string {
 	return "-"
 }
 
-// firstFailing is the reason the first combination of a strategy has no
-// window.
+// firstFailing is the reason a strategy has no window (sweep.FailingReason).
 func firstFailing(sr *sweep.StrategyResult) string { return sweep.FailingReason(sr) }
 
 // Num3 prints a number to three significant figures.

@@ -314,22 +314,70 @@ func (p *Plan) relaxedAt(sr *StrategyResult, c *ComboResult) []Relaxed {
 	return out
 }
 
-// FailingReason is what closes the window of a strategy: the first
-// combination's error or failing limit.
+// FailingReason is what closes the window of a strategy: the reason of
+// the combination that comes closest to a window (Closest), named by its
+// candidates and facility when the strategy's combinations give different
+// reasons, or else the first combination's error.
 func FailingReason(sr *StrategyResult) string {
-	pool := sr.Combos
-	if len(sr.Joint) > 0 {
-		pool = sr.Joint
+	pool := sr.failingPool()
+	if c := sr.Closest(); c != nil {
+		same := true
+		for _, o := range pool {
+			same = same && o.Err == "" && o.Failing == c.Failing
+		}
+		if len(pool) > 1 && !same {
+			return c.Label() + ": " + c.Failing
+		}
+		return c.Failing
 	}
 	for _, c := range pool {
 		if c.Err != "" {
 			return c.Err
 		}
-		if c.Failing != "" {
-			return c.Failing
-		}
 	}
 	return ""
+}
+
+// failingPool is what a strategy's verdict is drawn from: the joint
+// windows of a strategy with several cases, else its combinations.
+func (sr *StrategyResult) failingPool() []*ComboResult {
+	if len(sr.Joint) > 0 {
+		return sr.Joint
+	}
+	return sr.Combos
+}
+
+// Closest is, of the combinations of a strategy that say why they have no
+// window, the one that comes closest to a window: the largest margin over
+// the grid (and the second axis), the first in order among equals. It is
+// nil when none says why.
+func (sr *StrategyResult) Closest() *ComboResult {
+	var best *ComboResult
+	bestPeak := math.Inf(-1)
+	for _, c := range sr.failingPool() {
+		if c == nil || c.Err != "" || c.Failing == "" {
+			continue
+		}
+		if pk := c.marginPeak(); best == nil || pk > bestPeak {
+			best, bestPeak = c, pk
+		}
+	}
+	return best
+}
+
+// marginPeak is the largest margin of a combination over the grid and the
+// second axis (−Inf when it has no margins).
+func (c *ComboResult) marginPeak() float64 {
+	if c.axis != nil || c.AxisMargins != nil {
+		return c.AxisMarginPeak()
+	}
+	pk := math.Inf(-1)
+	for _, v := range c.Margins {
+		if v > pk {
+			pk = v
+		}
+	}
+	return pk
 }
 
 // gravityMismatch evaluates a relaxed group that needs the gravity scale

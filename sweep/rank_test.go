@@ -167,3 +167,46 @@ func TestRankSettingProblems(t *testing.T) {
 		}
 	}
 }
+
+// A strategy with no window is explained by the combination that comes
+// closest to one (the largest margin over the grid), named when its
+// combinations give different reasons; one reason shared by all is given
+// alone.
+func TestFailingReasonOfClosestCombination(t *testing.T) {
+	s, err := study.LoadScenario("tug")
+	if err != nil {
+		t.Fatal(err)
+	}
+	res := runStudy(t, s)
+	checked := 0
+	for _, sr := range res.Strategies {
+		if sr.Best != nil || len(sr.Combos) < 2 {
+			continue
+		}
+		var closest *ComboResult
+		peak := math.Inf(-1)
+		reasons := map[string]bool{}
+		for _, c := range sr.Combos {
+			reasons[c.Failing] = true
+			for _, m := range c.Margins {
+				if m > peak {
+					closest, peak = c, m
+				}
+			}
+		}
+		if closest == nil {
+			t.Fatalf("%s: no combination has margins", sr.Name)
+		}
+		want := closest.Failing
+		if len(reasons) > 1 {
+			want = closest.Medium + " in " + closest.Facility + ": " + closest.Failing
+		}
+		if got := FailingReason(sr); got != want {
+			t.Errorf("%s: reason\n%q, want that of the closest combination\n%q", sr.Name, got, want)
+		}
+		checked++
+	}
+	if checked < 2 {
+		t.Errorf("only %d strategies without a window checked", checked)
+	}
+}

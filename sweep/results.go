@@ -3,6 +3,7 @@ package sweep
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"scaleplan/feasibility"
 	"scaleplan/sweep/study"
@@ -206,4 +207,26 @@ func (sr *StrategyResult) CaseFactors(cs *PlanCase, rec *ComboResult) (map[strin
 		}
 	}
 	return nil, nil
+}
+
+// Label names a combination by its candidate pair and facility: "tank
+// water / model ice in Polar basin", "-" when it has none.
+func (c *ComboResult) Label() string {
+	var parts []string
+	for _, s := range []string{c.Medium, c.Material} {
+		if s != "" {
+			parts = append(parts, s)
+		}
+	}
+	s := strings.Join(parts, " / ")
+	if c.Facility != "" {
+		if s != "" {
+			s += " in "
+		}
+		s += c.Facility
+	}
+	if s == "" {
+		s = "-"
+	}
+	return s
 }

@@ -8,6 +8,7 @@ import (
 	"strings"
 
 	"scaleplan/feasibility"
+	"scaleplan/materials"
 )
 
 // Candidates judged against what the strategy requires (spec §8.1).
@@ -75,9 +76,19 @@ func (x *combo) candidateValue(c *Candidate2, q string) (float64, string, bool) 
 	if !ok {
 		return 0, "", false
 	}
-	conds := c.Conditions
-	if !math.IsNaN(x.axis) && isCondition(x.plan.Settings.Axis) && c.Role == "medium" {
-		a := fmt.Sprintf("%s %s (axis)", x.plan.Settings.Axis, strconv.FormatFloat(x.axis, 'g', 6, 64))
+	// The conditions as people read them (18 °C, not the cell's 18C); a
+	// medium swept over a condition holds at the axis value instead.
+	cond := c.cond
+	swept := !math.IsNaN(x.axis) && isCondition(x.plan.Settings.Axis) && c.Role == "medium"
+	if swept {
+		cond = cond.Without(materials.Condition(x.plan.Settings.Axis))
+	}
+	conds := cond.String()
+	if conds == "" && !swept {
+		conds = c.Conditions
+	}
+	if swept {
+		a := materials.FormatCondition(materials.Condition(x.plan.Settings.Axis), x.axis) + " (axis)"
 		if conds == "" {
 			conds = a
 		} else {
