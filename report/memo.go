@@ -107,10 +107,20 @@ func memoRecommendation(b *strings.Builder, res *sweep.Result, rec *sweep.ComboR
 	b.WriteString("\n\n")
 	memoWhy(b, res)
 	if r := rec.Robust; r != nil {
-		fmt.Fprintf(b, "**Uncertain inputs.** Drawing the study's uncertain inputs %d times, the scales that stay feasible with a probability of at least %.0f %% are %s (sampling error at most %.3f), against %s on nominal values.",
-			r.Samples, 100*r.Level, WindowText(r.Window), r.StdErr, WindowText(rec.Window))
+		// The sampling error of the probability, in percentage points,
+		// and never printed as zero.
+		sampling := fmt.Sprintf("at most %.1f percentage points", 100*r.StdErr)
+		if 100*r.StdErr < 0.05 {
+			sampling = "below 0.05 percentage points"
+		}
+		fmt.Fprintf(b, "**Uncertain inputs.** Drawing the study's uncertain inputs %d times, the scales that stay feasible with a probability of at least %.0f %% are %s (sampling error of that probability %s), against %s on nominal values.",
+			r.Samples, 100*r.Level, WindowText(r.Window), sampling, WindowText(rec.Window))
 		if len(r.Sensitivity) > 0 {
-			fmt.Fprintf(b, " The input that matters most is %s: knowing it exactly would widen that window by %.2f decades of scale.", Label(r.Sensitivity[0].Input), r.Sensitivity[0].Gain)
+			gain := fmt.Sprintf("by %.2f decades of scale", r.Sensitivity[0].Gain)
+			if r.Sensitivity[0].Gain < 0.005 {
+				gain = "by less than 0.01 decades of scale"
+			}
+			fmt.Fprintf(b, " The input that matters most is %s: knowing it exactly would widen that window %s.", Label(r.Sensitivity[0].Input), gain)
 		}
 		if r.Note != "" {
 			fmt.Fprintf(b, " (%s.)", r.Note)

@@ -207,7 +207,11 @@ func RunData(res *sweep.Result, outputs []string) any {
 				cj.CheapestOption = &optionJSON{Medium: o.Medium, Material: o.Material, Facility: o.Facility, KL: Round(o.Cheapest), Scale: sweep.Scale(o.Cheapest), Cost: Round(o.CheapestCost)}
 			}
 			if !math.IsNaN(a.LargerScale) {
-				l := &largerJSON{KL: Round(a.LargerScale), Scale: sweep.Scale(a.LargerScale), Limit: a.LargerLimit, Needs: []needJSON{}}
+				scale := sweep.Scale(a.LargerScale)
+				if !c.Window.Empty() {
+					scale = sweep.ScaleBeside(a.LargerScale, c.Window[0].Lo)
+				}
+				l := &largerJSON{KL: Round(a.LargerScale), Scale: scale, Limit: a.LargerLimit, Needs: []needJSON{}}
 				for _, n := range a.LargerNeeds {
 					l.Needs = append(l.Needs, needJSON{n.Capability, n.Unit, n.AtLeast, Round(n.Value), Round(n.Have), n.Limit})
 				}

@@ -87,6 +87,11 @@ func assumptionLines(res *sweep.Result, sr *sweep.StrategyResult, memo bool) []s
 		}
 	}
 	if !math.IsNaN(a.LargerScale) {
+		// Told apart from the window's large-model edge it sits next to.
+		larger := sweep.Scale(a.LargerScale)
+		if c := sr.Best; c != nil && !c.Window.Empty() {
+			larger = sweep.ScaleBeside(a.LargerScale, c.Window[0].Lo)
+		}
 		if len(a.LargerNeeds) > 0 {
 			var parts []string
 			for _, n := range a.LargerNeeds {
@@ -100,9 +105,9 @@ func assumptionLines(res *sweep.Result, sr *sweep.StrategyResult, memo bool) []s
 					parts = append(parts, fmt.Sprintf("%s %s %s (has %s; limit %q)", name(n.Capability), dir, num(n.Value, n.Unit), num(n.Have, n.Unit), limit(n.Limit)))
 				}
 			}
-			out = append(out, fmt.Sprintf("a larger model (%s) would need %s", sweep.Scale(a.LargerScale), strings.Join(parts, ", ")))
+			out = append(out, fmt.Sprintf("a larger model (%s) would need %s", larger, strings.Join(parts, ", ")))
 		} else if a.LargerLimit != "" {
-			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", sweep.Scale(a.LargerScale), limit(a.LargerLimit)))
+			out = append(out, fmt.Sprintf("a larger model (%s) is stopped by %q, which no facility capability relieves", larger, limit(a.LargerLimit)))
 		}
 	}
 	return out

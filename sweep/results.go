@@ -172,6 +172,23 @@ func Scale(kL float64) string {
 	return fmt.Sprintf("1:%.3g", kL)
 }
 
+// ScaleBeside is Scale of kL with as many more figures (up to six) as it
+// takes to read differently from Scale of ref: a larger model next to a
+// window's edge is not printed as the edge's own scale.
+func ScaleBeside(kL, ref float64) string {
+	s := Scale(kL)
+	if math.IsNaN(kL) || math.IsNaN(ref) || kL == ref || s != Scale(ref) {
+		return s
+	}
+	for digits := 4; digits <= 6; digits++ {
+		a, b := fmt.Sprintf("1:%.*g", digits, kL), fmt.Sprintf("1:%.*g", digits, ref)
+		if a != b {
+			return a
+		}
+	}
+	return s
+}
+
 func caseLabel(c, l string) string {
 	if l == RangeLimit {
 		return l

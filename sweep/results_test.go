@@ -27,3 +27,23 @@ func TestLimitMarginAt(t *testing.T) {
 		}
 	}
 }
+
+// ScaleBeside gives a scale next to another enough figures to read
+// differently (the cases written out by hand).
+func TestScaleBeside(t *testing.T) {
+	for _, tc := range []struct {
+		kL, ref float64
+		want    string
+	}{
+		{11.38, 11.43, "1:11.38"}, // both read 1:11.4 at Scale's figures
+		{148.9, 150.0, "1:148.9"}, // already different
+		{8.7, 8.75, "1:8.7"},
+		{5.9999, 6.0001, "1:5.9999"},
+		{25, 25, "1:25"},
+		{math.NaN(), 3, "-"},
+	} {
+		if got := ScaleBeside(tc.kL, tc.ref); got != tc.want {
+			t.Errorf("ScaleBeside(%v, %v) = %q, want %q", tc.kL, tc.ref, got, tc.want)
+		}
+	}
+}
