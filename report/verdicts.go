@@ -135,7 +135,20 @@ func memoWhy(b *strings.Builder, res *sweep.Result) {
 		return
 	}
 	keep := userNames(res)
-	fmt.Fprintf(b, "**Why this strategy.** It ranks first of %d: it %s.", len(res.Ranking), memoReason(res, *rec, keep))
+	feasible := 0
+	for _, e := range res.Ranking {
+		if e.Feasible {
+			feasible++
+		}
+	}
+	switch {
+	case len(res.Ranking) == 1:
+		fmt.Fprintf(b, "**Why this strategy.** It is the study's only strategy: it %s.", memoReason(res, *rec, keep))
+	case feasible == 1:
+		fmt.Fprintf(b, "**Why this strategy.** It is the only one of the %d strategies with a feasible scale: it %s.", len(res.Ranking), memoReason(res, *rec, keep))
+	default:
+		fmt.Fprintf(b, "**Why this strategy.** It ranks first of %d (%d with a feasible scale): it %s.", len(res.Ranking), feasible, memoReason(res, *rec, keep))
+	}
 	for _, e := range res.Ranking {
 		if e.Strategy == rec.Strategy {
 			continue

@@ -39,14 +39,14 @@ func TestMemoSaysWhy(t *testing.T) {
 	}{
 		{nil, []string{
 			"Use **centrifuge** (simulated) at **1:160**",
-			"**Why this strategy.** It ranks first of 3: it relaxes no law.",
+			"**Why this strategy.** It ranks first of 3 (2 with a feasible scale): it relaxes no law.",
 			// √120 ≈ 11: the Froude number's mismatch at 1:120 in 1 g.
 			"1 g bin ranks 2 although its model is larger (1:120): it relaxes the gravity law (the model's Froude number is 11 times the prototype's, beyond the threshold 10), and a strategy without such a scale effect ranks first whatever the model sizes",
 			"full similarity at 1 g ranks 3: no feasible scale",
 		}},
 		{[]string{"weak_laws", "gravity"}, []string{
 			"Use **1 g bin** (dominant) at **1:120**",
-			"It ranks first of 3: it relaxes only laws the study marks weak (the gravity law).",
+			"It ranks first of 3 (2 with a feasible scale): it relaxes only laws the study marks weak (the gravity law).",
 			"centrifuge ranks 2 (1:160, a smaller model): it relaxes no law.",
 		}},
 	}
