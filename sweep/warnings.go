@@ -2,6 +2,7 @@ package sweep
 
 import (
 	"fmt"
+	"slices"
 	"sort"
 	"strings"
 
@@ -24,6 +25,13 @@ func (p *Plan) warnDefaultLimits() {
 			}
 		}
 	}
+	// Facilities of one type missing the same items are named in one
+	// warning, in the order of the Facilities sheet.
+	type skip struct {
+		typ, text string
+		names     []string
+	}
+	var skips []*skip
 	for _, f := range p.Facilities {
 		if !used[f] || f.Type == "" {
 			continue
@@ -63,10 +71,24 @@ func (p *Plan) warnDefaultLimits() {
 				skipped = append(skipped, fmt.Sprintf("%q (%s) needs the prototype item %s", d.Name, d.Expression, strings.Join(missing, " and ")))
 			}
 		}
-		if len(skipped) > 0 {
-			p.Warnings.Add(study.Cell{Sheet: "Prototype"}, "default limits of %s (a %s) are not applied because the study has no item of that name: %s; add the items on the Prototype sheet, or give the limits on the Limits sheet in the study's own names",
-				f.Name, f.Type, strings.Join(skipped, "; "))
+		if len(skipped) == 0 {
+			continue
 		}
+		text := strings.Join(skipped, "; ")
+		i := slices.IndexFunc(skips, func(k *skip) bool { return k.typ == f.Type && k.text == text })
+		if i < 0 {
+			skips = append(skips, &skip{typ: f.Type, text: text})
+			i = len(skips) - 1
+		}
+		skips[i].names = append(skips[i].names, f.Name)
+	}
+	for _, k := range skips {
+		what := fmt.Sprintf("%s (a %s)", k.names[0], k.typ)
+		if len(k.names) > 1 {
+			what = fmt.Sprintf("%s and %s (each a %s)", strings.Join(k.names[:len(k.names)-1], ", "), k.names[len(k.names)-1], k.typ)
+		}
+		p.Warnings.Add(study.Cell{Sheet: "Prototype"}, "default limits of %s are not applied because the study has no item of that name: %s; add the items on the Prototype sheet, or give the limits on the Limits sheet in the study's own names",
+			what, k.text)
 	}
 }
 

@@ -160,3 +160,26 @@ func TestAxisDoesNotApplyToAFixedCase(t *testing.T) {
 }
 
 func isNaN(x float64) bool { return x != x }
+
+// Facilities of one type that miss the same prototype items are named in
+// one warning, not one each (the tug's two towing tanks).
+func TestWarnDefaultLimitsOncePerType(t *testing.T) {
+	s, err := study.LoadScenario("tug")
+	if err != nil {
+		t.Fatal(err)
+	}
+	plan, err := prepare(t, s)
+	if err != nil {
+		t.Fatal(err)
+	}
+	n := 0
+	for _, w := range plan.Warnings.Strings() {
+		if strings.Contains(w, "default limits of") {
+			n++
+		}
+	}
+	if n != 1 {
+		t.Errorf("%d warnings about default limits, want 1: %q", n, plan.Warnings.Strings())
+	}
+	studytest.HasWarning(t, plan.Warnings, "default limits of Estuary tank and Deepwater tank (each a towing_tank)", "needs the prototype item wave_period")
+}
