@@ -107,3 +107,12 @@ func TestSameCurve(t *testing.T) {
 		t.Errorf("sameCurve found %d for a different curve, want -1", got)
 	}
 }
+
+// Cost-axis ticks group thousands like the memo's money (by hand).
+func TestMoneyTick(t *testing.T) {
+	for v, want := range map[float64]string{0: "0", 950: "950", 1200: "1,200", 120000: "120,000", -35000: "−35,000", 2.5: "2.5", 1234567: "1,234,567"} {
+		if got := moneyTick(v); got != want {
+			t.Errorf("moneyTick(%v) = %q, want %q", v, got, want)
+		}
+	}
+}

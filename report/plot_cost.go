@@ -5,7 +5,6 @@ import (
 	"image/color"
 	"math"
 	"strconv"
-	"strings"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/plotter"
@@ -378,22 +377,15 @@ func (moneyTicks) Ticks(min, max float64) []plot.Tick {
 	return ticks
 }
 
-// moneyTick prints an amount with its thousands grouped by thin spaces:
-// "120 000".
+// moneyTick prints an amount with its thousands grouped by commas, as
+// the memo prints money: "120,000".
 func moneyTick(v float64) string {
 	if math.Abs(v) < 100 && v != math.Round(v) {
 		return strconv.FormatFloat(v, 'g', 3, 64)
 	}
-	s := strconv.FormatFloat(math.Abs(math.Round(v)), 'f', 0, 64)
-	var b strings.Builder
-	for i, r := range s {
-		if i > 0 && (len(s)-i)%3 == 0 {
-			b.WriteRune('\u2009')
-		}
-		b.WriteRune(r)
-	}
+	s := thousands(strconv.FormatFloat(math.Abs(math.Round(v)), 'f', 0, 64))
 	if v < 0 && s != "0" {
-		return "−" + b.String()
+		return "−" + s
 	}
-	return b.String()
+	return s
 }
