@@ -28,6 +28,11 @@ type limitPlan struct {
 	k      []float64   // constant of each products-of-powers limit
 	exps   [][]float64 // exponent of each term, in the order of terms
 	notes  []string
+	// fresh is set when a limit is a function of its own (a joint recipe,
+	// recipe_joint.go): its closure holds the requirements of the axis
+	// value it was made at, so such a combination compiles its limits
+	// afresh at every axis value.
+	fresh bool
 }
 
 // compile records a combination's limits, as limitsFor gave them.
@@ -40,6 +45,7 @@ func (lp *limitPlan) compile(limits []compiled, notes []string) {
 	for j, l := range limits {
 		l.vals, l.set = nil, nil
 		lp.limits[j] = l
+		lp.fresh = lp.fresh || l.fn != nil
 		lp.names[j] = l.lim.Names()
 		if !l.info.Linear {
 			continue
@@ -61,6 +67,9 @@ func (lp *limitPlan) compile(limits []compiled, notes []string) {
 // forms and A, B as they are (only the forms the axis value changes are
 // re-evaluated).
 func (lp *limitPlan) at(x *combo) ([]compiled, []string, error) {
+	if lp.fresh {
+		return x.limitsFor()
+	}
 	out := make([]compiled, len(lp.limits))
 	var buf [8]linForm
 	for j := range lp.limits {
