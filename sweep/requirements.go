@@ -248,6 +248,17 @@ func (x *combo) invertSampled(ctx context.Context, l compiled, n string, have fl
 // exactly for a products-of-powers limit. It returns NaN when the
 // facility fits everywhere or nowhere on the grid.
 func (r Requirement) FitEdges(grid []float64) []float64 {
+	if r.values == nil && len(r.us) == len(grid) && len(grid) > 1 {
+		// Kept as its form: the capability is just enough where the
+		// margin A + B·u is zero, inside the grid.
+		if r.b == 0 {
+			return nil
+		}
+		if u := -r.a / r.b; u > r.us[0] && u < r.us[len(r.us)-1] {
+			return []float64{math.Pow(10, u)}
+		}
+		return nil
+	}
 	var out []float64
 	for i := 1; i < len(grid); i++ {
 		a, b := r.Shortfall(i-1), r.Shortfall(i)

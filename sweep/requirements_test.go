@@ -66,6 +66,13 @@ func TestFacilityStopsFittingWhereInverted(t *testing.T) {
 		if len(edges) != 1 || !relClose(edges[0], want, 1e-9) {
 			t.Errorf("carriage %s m/s: stops fitting at %v, want kL %v", v, edges, want)
 		}
+		// The form gives the edge the grid's values give by
+		// interpolation.
+		stored := r
+		stored.values = r.All()
+		if e := stored.FitEdges(res.Plan.Grid); len(e) != 1 || !relClose(e[0], edges[0], 1e-9) {
+			t.Errorf("carriage %s m/s: from the values %v, from the form %v", v, e, edges)
+		}
 	}
 }
 
