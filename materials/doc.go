@@ -30,7 +30,10 @@
 // the nearest conditions. Library.FindRecipes searches every entry,
 // Library.Extreme finds the extreme value the library can make (the least
 // viscous liquid), and Entry.ValuesAt evaluates an entry cheaply at given
-// conditions (recipe.go).
+// conditions (recipe.go). A Searcher (Library.Searcher) runs those
+// searches remembering each entry's extremes, and does not solve an entry
+// whose range cannot reach a constant requirement: a sweep asks the same
+// question at many scales (recipe_searcher.go).
 // Kinematic viscosity is always viscosity/density (or the other of the
 // three derived from two). A property may carry a tunable range [Min, Max]:
 // model ice strength and modulus, lab kaolin strength, and for a fluid the
