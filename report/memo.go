@@ -155,7 +155,7 @@ func memoScaleEffects(b *strings.Builder, res *sweep.Result, rec *sweep.ComboRes
 			what = "tuned"
 		}
 		fmt.Fprintf(b, "- The model's %s is %s: %s %s at the recommended scale (%s to %s across the window; %s).\n",
-			Label(pv.Quantity), what, HumanNumber(pv.AtRecommended), unitOf(pv.Quantity), HumanNumber(pv.AtLo), HumanNumber(pv.AtHi), lawProse(pv.Law))
+			Label(pv.Quantity), what, HumanNumber(pv.AtRecommended), humanPowers(unitOf(pv.Quantity)), HumanNumber(pv.AtLo), HumanNumber(pv.AtHi), lawProse(pv.Law))
 		if recS.Technique == "substitute" {
 			if len(pv.Matches) == 0 {
 				b.WriteString("  No entry of the library meets it within the study's tolerance.\n")
@@ -168,7 +168,7 @@ func memoScaleEffects(b *strings.Builder, res *sweep.Result, rec *sweep.ComboRes
 		}
 	}
 	for _, m := range rec.Measures {
-		fmt.Fprintf(b, "- %s: %s %s at the recommended scale (%s to %s across the window).\n", Label(m.Name), HumanNumber(m.AtRecommended), m.Unit, HumanNumber(m.AtLo), HumanNumber(m.AtHi))
+		fmt.Fprintf(b, "- %s: %s %s at the recommended scale (%s to %s across the window).\n", Label(m.Name), HumanNumber(m.AtRecommended), humanPowers(m.Unit), HumanNumber(m.AtLo), HumanNumber(m.AtHi))
 	}
 	if !math.IsNaN(rec.AddedMass) {
 		fmt.Fprintf(b, "- Added mass: dummy weights must raise the model material's density by %s kg/m³, %s kg in total at the recommended scale.\n",

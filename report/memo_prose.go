@@ -19,6 +19,9 @@ import (
 var (
 	// eNumberRE is a number in E-notation as strconv writes it ("1.68e-08").
 	eNumberRE = regexp.MustCompile(`\b[0-9]+(?:\.[0-9]+)?e[+-]?[0-9]+\b`)
+	// powerRE is a power written with a caret ("m^2/s", "s^-1"), printed
+	// for people as a superscript (m²/s).
+	powerRE = regexp.MustCompile(`\^(-?[0-9]+)`)
 	// symbolWordRE is a scale-factor symbol standing as a word ("k_density").
 	symbolWordRE = regexp.MustCompile(`\bk_[a-z_]+\b`)
 	// rawWordRE matches, as whole words, every identifier of the label
@@ -96,10 +99,17 @@ func proseText(s string, keep []string) string {
 		}
 		return HumanNumber(x)
 	})
+	s = humanPowers(s)
 	for i := len(masked) - 1; i >= 0; i-- {
 		s = strings.ReplaceAll(s, "\x00"+strings.Repeat("\x02", i)+"\x01", masked[i])
 	}
 	return s
+}
+
+// humanPowers writes the caret powers of a text as superscripts: "m^2/s"
+// becomes "m²/s".
+func humanPowers(s string) string {
+	return powerRE.ReplaceAllStringFunc(s, func(p string) string { return superscripts.Replace(p[1:]) })
 }
 
 // replaceWord replaces the occurrences of w in s that do not stand inside

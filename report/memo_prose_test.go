@@ -14,8 +14,9 @@ func TestProseText(t *testing.T) {
 		{"tank_width_2 and my_tank_width", "tank_width_2 and my_tank_width"},
 		{"default limits of Tank A (a towing_tank)", "default limits of Tank A (a towing_tank)"},
 		{"default limits of X (a wave_basin)", "default limits of X (a wave basin)"},
-		// 1.68e-08 = 1.68 × 10⁻⁸; 8.05e+04 = 80,500 (three figures, separators).
-		{"needs 1.68e-08 m^2/s; has 8.05e+04 Pa", "needs 1.68 × 10⁻⁸ m^2/s; has 80,500 Pa"},
+		// 1.68e-08 = 1.68 × 10⁻⁸; 8.05e+04 = 80,500 (three figures, separators);
+		// a caret power is a superscript.
+		{"needs 1.68e-08 m^2/s; has 8.05e+04 Pa", "needs 1.68 × 10⁻⁸ m²/s; has 80,500 Pa"},
 		{"over k_density = 2.5", "over k(density) = 2.5"},
 		{"tuned consolidation_coefficient min", "tuned coefficient of consolidation min"},
 		// A law that is no quantity gets the law's name.

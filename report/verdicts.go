@@ -260,7 +260,7 @@ func humanWithUnit(x float64, unit string) string {
 	if unit == "" || unit == "1" {
 		return HumanNumber(x)
 	}
-	return HumanNumber(x) + " " + unit
+	return HumanNumber(x) + " " + humanPowers(unit)
 }
 
 func withUnit(x float64, unit string) string {
