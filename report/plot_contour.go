@@ -129,6 +129,12 @@ const (
 func drawContour(dc draw.Canvas, res *sweep.Result, cm *ContourMap) {
 	title := fmt.Sprintf("%s: %s, margin over scale and %s\n%s; bold line: margin 0, the edge of the feasible region; dot: recommended point",
 		res.Name, cm.Strategy, cm.Axis, clip(cm.Label, 80))
+	if cm.Combo.Window.Empty() {
+		// No window anywhere: the map shows the combination that comes
+		// closest, and has neither an edge nor a recommended point.
+		title = fmt.Sprintf("%s: %s, margin over scale and %s\n%s, the combination that comes closest: no scale is feasible at any %s",
+			res.Name, cm.Strategy, cm.Axis, clip(cm.Label, 80), cm.Axis)
+	}
 	if len(cm.Iso) > 0 {
 		title += "\ndotted: iso-lines of the study's measures at model scale, each labelled with its value"
 	}
