@@ -69,7 +69,11 @@ func (p *Plan) prepareCandidates(rows []study.Candidate, sheet, role string, ps 
 		if entry == "" {
 			entry = name
 		}
-		stated, tune, rerr := tunableConditions(r.Conditions)
+		var at func(materials.Condition, float64, float64) float64
+		if e, lerr := p.Library.Lookup(entry); lerr == nil {
+			at = operatingPoint(e)
+		}
+		stated, tune, rerr := tunableConditions(r.Conditions, at)
 		props, e, cond, err := p.entryProps(entry, stated)
 		if err == nil {
 			err = rerr

@@ -20,7 +20,8 @@ import (
 //     row states it;
 //   - a condition written as a range on the Media row (w=0.3..0.9,
 //     T=15..30C) is tunable within that range (the candidate's stated
-//     properties are taken at the middle of the range);
+//     properties are taken at the entry's default brought into the range,
+//     operatingPoint);
 //   - every other condition (temperature, pressure) is held at the value
 //     the row states, the second axis's value, or the entry's default.
 //
@@ -89,9 +90,14 @@ type extremeFound struct {
 }
 
 // tunableConditions splits a Media row's conditions into those stated and
-// those given as ranges (KEY=LO..HI), the latter at the middle of their
-// range for the candidate's stated properties.
-func tunableConditions(text string) (string, map[materials.Condition]materials.Range, error) {
+// those given as ranges (KEY=LO..HI). A range stands, for the candidate's
+// stated properties (those a strategy that does not tune it sees), at the
+// value at(condition, lo, hi) picks: operatingPoint's, or the middle when
+// at is nil.
+func tunableConditions(text string, at func(k materials.Condition, lo, hi float64) float64) (string, map[materials.Condition]materials.Range, error) {
+	if at == nil {
+		at = func(_ materials.Condition, lo, hi float64) float64 { return (lo + hi) / 2 }
+	}
 	if !strings.Contains(text, "..") {
 		return text, nil, nil
 	}
@@ -131,9 +137,25 @@ func tunableConditions(text string) (string, map[materials.Condition]materials.R
 			return "", nil, fmt.Errorf("conditions %q, part %q: the lower end must come first and be below the upper", text, part)
 		}
 		tune[k] = materials.Range{Min: a, Max: b}
-		keep = append(keep, key+"="+writeCondition(k, (a+b)/2))
+		keep = append(keep, key+"="+writeCondition(k, at(k, a, b)))
 	}
 	return strings.Join(keep, ", "), tune, nil
+}
+
+// operatingPoint is where a library entry's condition given as a range
+// stands when nothing tunes it: the entry's default (a gas at atmospheric
+// pressure, a liquid at 20 °C) brought into the range, so that a
+// strategy that does not need a pressurised tunnel is not judged in one;
+// the middle of the range for a condition the entry does not describe.
+func operatingPoint(e materials.Entry) func(k materials.Condition, lo, hi float64) float64 {
+	return func(k materials.Condition, lo, hi float64) float64 {
+		for _, r := range e.Ranges {
+			if r.Condition == k {
+				return math.Min(math.Max(r.Default, lo), hi)
+			}
+		}
+		return (lo + hi) / 2
+	}
 }
 
 func numericPrefix(s string) int {

@@ -153,7 +153,7 @@ func TestTugSubstituteNamesLeastViscousLiquid(t *testing.T) {
 // TestTunableConditionRanges: a Media row's KEY=LO..HI makes a condition
 // tunable within that range.
 func TestTunableConditionRanges(t *testing.T) {
-	stated, tune, err := tunableConditions("20C, w=0.3..0.9")
+	stated, tune, err := tunableConditions("20C, w=0.3..0.9", nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -165,7 +165,7 @@ func TestTunableConditionRanges(t *testing.T) {
 			t.Errorf("range %v, want 0.3–0.9", r)
 		}
 	}
-	if _, tune, err := tunableConditions("T=15..30C"); err != nil || len(tune) != 1 {
+	if _, tune, err := tunableConditions("T=15..30C", nil); err != nil || len(tune) != 1 {
 		t.Errorf("T=15..30C: %v %v", tune, err)
 	} else {
 		for _, r := range tune {
@@ -174,7 +174,7 @@ func TestTunableConditionRanges(t *testing.T) {
 			}
 		}
 	}
-	if stated, tune, err := tunableConditions("S=10..30g/kg, 15C"); err != nil || len(tune) != 1 {
+	if stated, tune, err := tunableConditions("S=10..30g/kg, 15C", nil); err != nil || len(tune) != 1 {
 		t.Errorf("S=10..30g/kg: %v %v", tune, err)
 	} else {
 		for _, r := range tune {
@@ -186,7 +186,7 @@ func TestTunableConditionRanges(t *testing.T) {
 			t.Errorf("stated %q reads as %+v (%v), want S = 20 g/kg at 15 °C", stated, c, err)
 		}
 	}
-	if _, _, err := tunableConditions("w=0.9..0.3"); err == nil {
+	if _, _, err := tunableConditions("w=0.9..0.3", nil); err == nil {
 		t.Error("a reversed range is accepted")
 	}
 }
@@ -414,6 +414,43 @@ func BenchmarkSlurryRecipes(b *testing.B) {
 		}
 		if _, err := plan.Run(context.Background()); err != nil {
 			b.Fatal(err)
+		}
+	}
+}
+
+// A condition given as a range stands, for the properties a strategy that
+// does not tune it sees, at the entry's default brought into the range:
+// tunnel air at atmospheric pressure when the tunnel may be pressurised
+// up to 8 bar, not at the middle, 4.5 bar (defaults: 101.325 kPa for a gas,
+// 20 °C for water, w = 0.5 for water–glycerol, read from the library's
+// entries).
+func TestRangedConditionAtOperatingPoint(t *testing.T) {
+	for _, tc := range []struct {
+		scenario, entry, conditions string
+		k                           materials.Condition
+		want                        float64
+	}{
+		{"conductor", "air", "15C, p=1..8bar", materials.Pressure, 101325},
+		{"conductor", "air", "15C, p=2..8bar", materials.Pressure, 200000}, // the default is below: the range's low end
+		{"tug", "water", "T=15..30C", materials.Temperature, 293.15},
+		{"tug", "water", "T=25..30C", materials.Temperature, 298.15},
+		{"slurry", "water_glycerol", "20C, w=0.3..0.9", materials.MassFraction, 0.5},
+	} {
+		s, err := study.LoadScenario(tc.scenario)
+		if err != nil {
+			t.Fatal(err)
+		}
+		s.Media[0].Entry, s.Media[0].Conditions = tc.entry, tc.conditions
+		plan, err := prepare(t, s)
+		if err != nil {
+			t.Fatalf("%s %q: %v", tc.entry, tc.conditions, err)
+		}
+		c := plan.Media[0]
+		if got, ok := c.cond.Get(tc.k); !ok || math.Abs(got-tc.want) > 1e-9*tc.want {
+			t.Errorf("%s %q: stated %s %v, want %v", tc.entry, tc.conditions, tc.k, got, tc.want)
+		}
+		if len(c.tune) != 1 {
+			t.Errorf("%s %q: tunable %v, want the range", tc.entry, tc.conditions, c.tune)
 		}
 	}
 }
