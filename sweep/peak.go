@@ -15,10 +15,15 @@ import (
 // place. A contour map picks, among combinations with no window, the one
 // whose margin peaks highest over the grid and the second axis: the peak is
 // found this way at every axis value while the windows are found, in
-// O(limits²), without sweeping the grid (a limit that is not a product of
-// powers falls back to a pass over the grid). It is found at the axis
-// values where the window is empty; a combination with a window somewhere
-// has its peak swept on demand (ComboResult.AxisMarginPeak).
+// O(limits²), without sweeping the grid. A limit that is not a product of
+// powers but whose sampled margins are concave along the grid (a run
+// length) keeps the margin concave, and a ternary search over the grid
+// points finds the peak; any other falls back to a pass over the grid. It
+// is found at the axis values where the window is empty; a combination
+// with a window somewhere has its peak swept on demand
+// (ComboResult.AxisMarginPeak). The same peak, over the grid at the chosen
+// axis value, names the combination that explains a strategy with no
+// window (StrategyResult.Closest).
 
 // line is a margin A + B·u.
 type line struct{ a, b float64 }
