@@ -193,7 +193,7 @@ func TestTugCompleteAndSubstitute(t *testing.T) {
 	for _, want := range []string{
 		fmt.Sprintf("needs kinematic viscosity %.3g m^2/s at 1:11.4", nuP/math.Pow(kL, 1.5)),
 		fmt.Sprintf("tank water has %.3g m^2/s", nuW.Value),
-		fmt.Sprintf("the closest liquid in the library, %s, has %.3g m^2/s", least, leastNu),
+		fmt.Sprintf("the closest liquid in the library at its default conditions, %s, has %.3g m^2/s", least, leastNu),
 	} {
 		if !strings.Contains(c.Failing, want) {
 			t.Errorf("failing = %q, want it to say %q", c.Failing, want)

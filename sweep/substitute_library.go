@@ -211,7 +211,7 @@ func (x *combo) closestEntry(ch check, others []uInterval) string {
 	if best.margin >= 0 {
 		return fmt.Sprintf("the library's %s %s meets it at %s (%s): add it as a candidate", word, best.name, Scale(math.Pow(10, best.u)), sig3(best.own, unit))
 	}
-	s := fmt.Sprintf("the closest %s in the library, %s, has %s", word, best.name, sig3(best.own, unit))
+	s := fmt.Sprintf("the closest %s in the library at its default conditions, %s, has %s", word, best.name, sig3(best.own, unit))
 	if best.reqDiffersOwn {
 		s += fmt.Sprintf(" (with its own properties it would need %s at %s)", sig3(best.req, unit), Scale(math.Pow(10, best.u)))
 	}
